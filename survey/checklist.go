@@ -1,0 +1,323 @@
+package survey
+
+import (
+	"bytes"
+	"fmt"
+	"regexp"
+	"sort"
+	"strconv"
+	"strings"
+	"time"
+
+	"github.com/yuin/goldmark"
+	meta "github.com/yuin/goldmark-meta"
+	"github.com/yuin/goldmark/ast"
+	"github.com/yuin/goldmark/extension"
+	east "github.com/yuin/goldmark/extension/ast"
+	"github.com/yuin/goldmark/parser"
+	"github.com/yuin/goldmark/text"
+)
+
+// markdown parses checklists: front matter, GFM tables and task lists only
+// (full GFM would also turn bare addresses in cells into links).
+var markdown = goldmark.New(goldmark.WithExtensions(meta.Meta, extension.Table, extension.TaskList))
+
+// checklistReader holds the state of one ParseChecklist call.
+type checklistReader struct {
+	file     string
+	src      []byte
+	lines    lineIndex
+	survey   *Survey
+	problems ProblemList
+	asset    *Asset
+	comp     *Component
+	cmlLines map[string]int // CML id -> line of first use
+}
+
+// ParseChecklist reads a survey.md. It returns the survey and every problem
+// found; when the list holds an error the survey is incomplete.
+func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
+	r := &checklistReader{
+		file:     file,
+		src:      src,
+		lines:    newLineIndex(src),
+		survey:   &Survey{File: file, Units: MM},
+		cmlLines: map[string]int{},
+	}
+	ctx := parser.NewContext()
+	doc := markdown.Parser().Parse(text.NewReader(src), parser.WithContext(ctx))
+	r.frontMatter(ctx)
+	for n := doc.FirstChild(); n != nil; n = n.NextSibling() {
+		r.block(n)
+	}
+	r.finish()
+	r.problems.Sort()
+	r.survey.Problems = r.problems.Warnings()
+	return r.survey, r.problems
+}
+
+func (r *checklistReader) lineOf(n ast.Node) int {
+	if n.Type() == ast.TypeBlock && n.Lines().Len() > 0 {
+		return r.lines.line(n.Lines().At(0).Start)
+	}
+	return r.lines.line(min(n.Pos(), len(r.src)))
+}
+
+// frontMatterKeys are the keys the front matter may hold.
+var frontMatterKeys = []string{"title", "site", "date", "inspector", "units"}
+
+func (r *checklistReader) frontMatter(ctx parser.Context) {
+	s := r.survey
+	if !bytes.HasPrefix(bytes.TrimPrefix(r.src, []byte("\xef\xbb\xbf")), []byte("---")) {
+		r.problems.Errorf(r.file, 1, "no front matter: the checklist must open with a line `---`, then title, site, date, inspector and units, then `---`")
+		return
+	}
+	m, err := meta.TryGet(ctx)
+	if err != nil {
+		line, msg := 1, err.Error()
+		if sub := yamlLine.FindStringSubmatch(msg); sub != nil {
+			n, _ := strconv.Atoi(sub[1])
+			line = n + 1 // yaml counts from the line after the opening ---
+			msg = strings.Replace(msg, sub[0], "", 1)
+		}
+		r.problems.Errorf(r.file, line, "front matter: %s", strings.TrimPrefix(msg, "yaml: "))
+		return
+	}
+	get := func(key string) (string, int, bool) {
+		v, ok := m[key]
+		if !ok || v == nil {
+			return "", r.keyLine(key), false
+		}
+		return strings.TrimSpace(fmt.Sprint(v)), r.keyLine(key), true
+	}
+	var ok bool
+	var line int
+	if s.Title, line, ok = get("title"); !ok || s.Title == "" {
+		r.problems.Errorf(r.file, line, "front matter has no title")
+	}
+	if s.Site, line, ok = get("site"); !ok || s.Site == "" {
+		r.problems.Warnf(r.file, line, "front matter has no site")
+	}
+	if s.Inspector, line, ok = get("inspector"); !ok || s.Inspector == "" {
+		r.problems.Warnf(r.file, line, "front matter has no inspector")
+	}
+	date, line, ok := get("date")
+	if !ok {
+		r.problems.Errorf(r.file, line, "front matter has no date (this visit, e.g. 2026-11-30)")
+	} else if t, err := parseFrontMatterDate(date); err != nil {
+		r.problems.Errorf(r.file, line, "date %q is not an ISO 8601 date such as 2026-11-30", date)
+	} else {
+		s.Date = t
+	}
+	units, line, ok := get("units")
+	if !ok {
+		r.problems.Errorf(r.file, line, "front matter has no units (mm or in)")
+	} else if u, known := ParseUnit(units); !known {
+		r.problems.Errorf(r.file, line, "unknown units %q (use mm or in)", units)
+	} else {
+		s.Units = u
+	}
+	var unknown []string
+	for k := range m {
+		if !contains(frontMatterKeys, k) {
+			unknown = append(unknown, k)
+		}
+	}
+	sort.Strings(unknown)
+	for _, k := range unknown {
+		r.problems.Warnf(r.file, r.keyLine(k), "front matter key %q is not used", k)
+	}
+}
+
+var yamlLine = regexp.MustCompile(`line (\d+): `)
+
+// keyLine finds the line of `key:` in the front matter, or 1.
+func (r *checklistReader) keyLine(key string) int {
+	for i, l := range strings.Split(string(r.src), "\n") {
+		if i > 0 && strings.TrimSpace(l) == "---" {
+			break
+		}
+		if strings.HasPrefix(strings.TrimSpace(l), key+":") {
+			return i + 1
+		}
+	}
+	return 1
+}
+
+func parseFrontMatterDate(s string) (time.Time, error) {
+	if len(s) >= 10 {
+		if t, err := time.Parse("2006-01-02", s[:10]); err == nil && (len(s) == 10 || s[10] == 'T' || s[10] == ' ') {
+			return t, nil
+		}
+	}
+	return time.Time{}, fmt.Errorf("bad date")
+}
+
+func (r *checklistReader) block(n ast.Node) {
+	switch n := n.(type) {
+	case *ast.Heading:
+		r.heading(n)
+	case *ast.List:
+		r.list(n)
+	case *east.Table:
+		r.table(n)
+	case *ast.Paragraph:
+		r.note(Note{Markdown: r.inlineSource(n), Line: r.lineOf(n)})
+	case *ast.Blockquote:
+		for c := n.FirstChild(); c != nil; c = c.NextSibling() {
+			r.block(c)
+		}
+	case *ast.FencedCodeBlock, *ast.CodeBlock, *ast.HTMLBlock:
+		r.note(Note{Markdown: "`" + strings.TrimSpace(r.inlineSource(n)) + "`", Line: r.lineOf(n)})
+	}
+}
+
+func (r *checklistReader) heading(h *ast.Heading) {
+	name := strings.TrimSpace(r.inlineSource(h))
+	line := r.lineOf(h)
+	switch h.Level {
+	case 1:
+		r.asset = &Asset{Name: name, Line: line}
+		r.survey.Assets = append(r.survey.Assets, r.asset)
+		r.comp = nil
+	case 2:
+		a := r.currentAsset()
+		r.comp = &Component{Name: name, Line: line, Asset: a.Name, Design: Design{Lines: map[string]int{}}}
+		a.Components = append(a.Components, r.comp)
+	default:
+		r.note(Note{Markdown: "**" + name + "**", Line: line})
+	}
+}
+
+// currentAsset returns the asset being read, creating the one named by the
+// title when the checklist has no `#` heading.
+func (r *checklistReader) currentAsset() *Asset {
+	if r.asset == nil {
+		r.asset = &Asset{Name: r.survey.Title}
+		r.survey.Assets = append(r.survey.Assets, r.asset)
+	}
+	return r.asset
+}
+
+func (r *checklistReader) note(n Note) {
+	switch {
+	case r.comp != nil:
+		r.comp.Notes = append(r.comp.Notes, n)
+	case r.asset != nil:
+		r.asset.Notes = append(r.asset.Notes, n)
+	default:
+		r.survey.Notes = append(r.survey.Notes, n)
+	}
+}
+
+// inlineSource returns the Markdown source of a block's lines, joined by spaces.
+func (r *checklistReader) inlineSource(n ast.Node) string {
+	var parts []string
+	lines := n.Lines()
+	for i := 0; i < lines.Len(); i++ {
+		seg := lines.At(i)
+		parts = append(parts, strings.TrimSpace(string(seg.Value(r.src))))
+	}
+	return strings.Join(parts, " ")
+}
+
+var designItem = regexp.MustCompile(`^\s*([A-Za-z][A-Za-z ]*?)\s*:\s*(.*?)\s*$`)
+
+func (r *checklistReader) list(l *ast.List) {
+	for item := l.FirstChild(); item != nil; item = item.NextSibling() {
+		for c := item.FirstChild(); c != nil; c = c.NextSibling() {
+			switch c := c.(type) {
+			case *ast.List:
+				r.list(c)
+			case *ast.TextBlock, *ast.Paragraph:
+				r.listText(c)
+			default:
+				r.block(c)
+			}
+		}
+	}
+}
+
+func (r *checklistReader) listText(block ast.Node) {
+	line := r.lineOf(block)
+	src := r.inlineSource(block)
+	if box, ok := block.FirstChild().(*east.TaskCheckBox); ok {
+		text := strings.TrimSpace(src[strings.Index(src, "]")+1:])
+		if r.comp == nil {
+			r.problems.Warnf(r.file, line, "scope item outside a ## component: shown as a note")
+			r.note(Note{Markdown: src, Bullet: true, Line: line})
+			return
+		}
+		r.comp.Scope = append(r.comp.Scope, ScopeItem{Text: text, Done: box.IsChecked, Line: line})
+		return
+	}
+	if r.comp != nil {
+		if m := designItem.FindStringSubmatch(src); m != nil {
+			key := strings.ToLower(m[1])
+			if contains(designKeys, key) {
+				r.design(key, m[2], line)
+				return
+			}
+		}
+	}
+	r.note(Note{Markdown: src, Bullet: true, Line: line})
+}
+
+// designKeys are the keys of a component's design list.
+var designKeys = []string{"nominal", "required", "installed", "consequence"}
+
+func (r *checklistReader) design(key, value string, line int) {
+	d := &r.comp.Design
+	if first, dup := d.Lines[key]; dup {
+		r.problems.Errorf(r.file, line, "%s given twice in %q (first at line %d)", key, r.comp.Name, first)
+		return
+	}
+	d.Lines[key] = line
+	switch key {
+	case "nominal", "required":
+		v, err := ParseThickness(value, r.survey.Units)
+		if err != nil {
+			r.problems.Errorf(r.file, line, "%s: %q is not a thickness (a number, optionally followed by mm or in)", key, value)
+			return
+		}
+		if key == "nominal" {
+			d.NominalMM = &v
+		} else {
+			d.RequiredMM = &v
+		}
+	case "installed":
+		dt, ok := ParseVisitDate(value)
+		if !ok {
+			r.problems.Errorf(r.file, line, "installed: %q is not a date such as 2009-06-30 or 2009-06", value)
+			return
+		}
+		d.Installed = &dt
+	case "consequence":
+		c, ok := ParseConsequence(value)
+		if !ok {
+			r.problems.Errorf(r.file, line, "consequence: %q is not low, medium, high or very high", value)
+			return
+		}
+		d.Consequence = c
+	}
+}
+
+// ParseConsequence reads low, medium, high or very high.
+func ParseConsequence(s string) (Consequence, bool) {
+	s = strings.Join(strings.Fields(strings.ToLower(s)), " ")
+	for i, name := range consequenceNames {
+		if i > 0 && s == name {
+			return Consequence(i), true
+		}
+	}
+	return ConsequenceUnknown, false
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}

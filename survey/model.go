@@ -1,0 +1,155 @@
+package survey
+
+import "time"
+
+// Survey is one inspection visit's checklist, with the readings of earlier
+// visits that its tables carry. Thicknesses are held in millimetres whatever
+// the checklist's display units.
+type Survey struct {
+	Dir       string    // the survey folder
+	File      string    // path of survey.md as given to the reader
+	Title     string    // front matter title
+	Site      string    // front matter site
+	Date      time.Time // this visit
+	Inspector string
+	Units     Unit // display units, and the unit of a bare number
+	Assets    []*Asset
+	Notes     []Note    // notes before the first heading
+	Photos    []*Photo  // every JPEG found under photos/, sorted by name
+	Problems  []Problem // warnings found while reading (errors stop the read)
+}
+
+// Asset is a tank, a piping system, a bridge: a `# heading` in the checklist.
+type Asset struct {
+	Name       string
+	Line       int
+	Notes      []Note
+	Components []*Component
+}
+
+// Component is a shell course, a pipe circuit, a girder flange: a `## heading`.
+type Component struct {
+	Name   string
+	Line   int
+	Asset  string
+	Design Design
+	CMLs   []*CML
+	Scope  []ScopeItem
+	Notes  []Note
+	// VisitDates lists the dates of the reading table's visit columns, oldest first.
+	VisitDates []VisitDate
+}
+
+// Design is a component's design data from its `key: value` list.
+type Design struct {
+	NominalMM   *float64
+	RequiredMM  *float64
+	Installed   *VisitDate
+	Consequence Consequence
+	Lines       map[string]int // key -> line, for messages
+}
+
+// CML is a condition monitoring location: one row of a reading table.
+type CML struct {
+	ID        string
+	Line      int
+	Location  string
+	GPS       *LatLon
+	PhotoRefs []string // names relative to photos/, as written
+	Visits    []Visit  // oldest first; only visits with at least one reading
+}
+
+// Visit is the readings taken at one CML on one date.
+type Visit struct {
+	Date       VisitDate
+	ReadingsMM []float64
+	Line       int
+}
+
+// Governing returns the governing (minimum) reading of the visit in mm.
+func (v Visit) Governing() float64 {
+	m := v.ReadingsMM[0]
+	for _, r := range v.ReadingsMM[1:] {
+		m = min(m, r)
+	}
+	return m
+}
+
+// VisitDate is a visit's date and the precision it was written with.
+type VisitDate struct {
+	Time      time.Time
+	MonthOnly bool // written as YYYY-MM; Time is then the 15th of that month
+}
+
+// String writes the date back as it was written.
+func (d VisitDate) String() string {
+	if d.MonthOnly {
+		return d.Time.Format("2006-01")
+	}
+	return d.Time.Format("2006-01-02")
+}
+
+// LatLon is a WGS 84 position in decimal degrees.
+type LatLon struct{ Lat, Lon float64 }
+
+// ScopeItem is one entry of a component's scope checklist (a task list item).
+type ScopeItem struct {
+	Text string // Markdown inline text as written
+	Done bool
+	Line int
+}
+
+// Note is a paragraph or bullet carried into the report as written.
+type Note struct {
+	Markdown string // inline Markdown source
+	Bullet   bool
+	Line     int
+}
+
+// Consequence is the consequence-of-failure class written in the design list.
+type Consequence int
+
+// Consequence classes, lowest first. ConsequenceUnknown sorts below Low.
+const (
+	ConsequenceUnknown Consequence = iota
+	ConsequenceLow
+	ConsequenceMedium
+	ConsequenceHigh
+	ConsequenceVeryHigh
+)
+
+var consequenceNames = []string{"", "low", "medium", "high", "very high"}
+
+// String returns the class as written in checklists ("" when unknown).
+func (c Consequence) String() string { return consequenceNames[c] }
+
+// Photo is a JPEG under photos/ and what its EXIF header says.
+type Photo struct {
+	Name        string // slash-separated path relative to photos/
+	Path        string // path on disk
+	Taken       *time.Time
+	GPS         *LatLon
+	Orientation int      // EXIF orientation 1..8; 1 when absent
+	CMLs        []string // CMLs whose rows name this photo
+	Problem     string   // why the file could not be read, if it could not
+}
+
+// AllCMLs returns every CML in checklist order with its asset and component.
+func (s *Survey) AllCMLs() []Located {
+	var out []Located
+	for _, a := range s.Assets {
+		for _, c := range a.Components {
+			for _, m := range c.CMLs {
+				out = append(out, Located{Asset: a, Component: c, CML: m})
+			}
+		}
+	}
+	return out
+}
+
+// Located is a CML with the asset and component it belongs to.
+type Located struct {
+	Asset     *Asset
+	Component *Component
+	CML       *CML
+}
