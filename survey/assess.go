@@ -1,0 +1,68 @@
+package survey
+
+import (
+	"slices"
+	"time"
+
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+// Assessed is one CML with its computed result and its place in the ranking.
+type Assessed struct {
+	Rank      int // 1 = most urgent
+	Asset     *Asset
+	Component *Component
+	CML       *CML
+	Result    wallloss.Result
+}
+
+// Assess computes every CML of the survey and ranks them, most urgent first
+// (see wallloss.CompareUrgency).
+func Assess(s *Survey, p wallloss.Policy) []*Assessed {
+	latest := s.LatestVisit()
+	var items []*Assessed
+	for _, loc := range s.AllCMLs() {
+		d := loc.Component.Design
+		in := wallloss.Input{NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest}
+		if d.Installed != nil {
+			in.Installed = &d.Installed.Time
+		}
+		for _, v := range loc.CML.Visits {
+			in.Readings = append(in.Readings, wallloss.Reading{Date: v.Date.Time, ThicknessMM: v.Governing()})
+		}
+		items = append(items, &Assessed{Asset: loc.Asset, Component: loc.Component, CML: loc.CML, Result: wallloss.Assess(in, p)})
+	}
+	slices.SortStableFunc(items, func(a, b *Assessed) int { return wallloss.CompareUrgency(a.ranked(), b.ranked()) })
+	for i, it := range items {
+		it.Rank = i + 1
+	}
+	return items
+}
+
+func (a *Assessed) ranked() wallloss.Ranked {
+	return wallloss.Ranked{Result: a.Result, Consequence: int(a.Component.Design.Consequence), ID: a.CML.ID}
+}
+
+// LatestVisit is the newest visit date found in any reading table.
+func (s *Survey) LatestVisit() time.Time {
+	var t time.Time
+	for _, loc := range s.AllCMLs() {
+		for _, v := range loc.CML.Visits {
+			if v.Date.Time.After(t) {
+				t = v.Date.Time
+			}
+		}
+	}
+	return t
+}
+
+// Governing returns the component's most urgent CML (the first in rank order),
+// which governs the component; nil when it has none.
+func Governing(items []*Assessed, c *Component) *Assessed {
+	for _, it := range items {
+		if it.Component == c {
+			return it
+		}
+	}
+	return nil
+}
