@@ -167,7 +167,7 @@ func TestAddYears(t *testing.T) {
 		want  string
 	}{
 		{"2023-06-01", 10, "2033-06-01"},
-		{"2024-02-29", 1, "2025-03-01"}, // Go's AddDate normalises Feb 29 + 1 y
+		{"2024-02-29", 1, "2025-03-01"},   // Go's AddDate normalises Feb 29 + 1 y
 		{"2023-06-01", 0.5, "2023-11-30"}, // 182.625 days, rounded down
 		{"2023-06-01", 0, "2023-06-01"},
 	} {

@@ -1,0 +1,42 @@
+package main
+
+import (
+	"fmt"
+
+	"github.com/spf13/cobra"
+
+	"github.com/lossline/lossline/survey"
+)
+
+func newCheckCmd() *cobra.Command {
+	c := &cobra.Command{
+		Use:   "check SURVEY",
+		Short: "Check a survey folder and list every problem, writing nothing",
+		Long: "Prints every problem as path:line: message. Exits 1 if any is an error, 0 otherwise\n" +
+			"(warnings alone do not fail the check).",
+		Args: exactArgs(1),
+		RunE: runCheck,
+	}
+	addSettingFlags(c)
+	return c
+}
+
+func runCheck(c *cobra.Command, args []string) error {
+	if _, err := loadSettings(c, args[0]); err != nil {
+		return err
+	}
+	_, problems := survey.Load(args[0])
+	w := c.OutOrStdout()
+	errs := 0
+	for _, p := range problems {
+		fmt.Fprintln(w, p)
+		if p.Severity == survey.Error {
+			errs++
+		}
+	}
+	fmt.Fprintf(w, "%d errors, %d warnings\n", errs, len(problems)-errs)
+	if errs > 0 {
+		return silentExit(exitBadInput)
+	}
+	return nil
+}

@@ -1,0 +1,76 @@
+package main
+
+import (
+	"fmt"
+	"path/filepath"
+	"time"
+
+	"github.com/spf13/cobra"
+
+	"github.com/lossline/lossline/report"
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+func newReportCmd() *cobra.Command {
+	c := &cobra.Command{
+		Use:   "report SURVEY",
+		Short: "Write report.pdf, results.json and results.csv for a survey folder",
+		Long: "Reads SURVEY/survey.md and SURVEY/photos, computes rates, remaining life and dates,\n" +
+			"and writes OUTDIR/report.pdf, OUTDIR/results.json and OUTDIR/results.csv.\n" +
+			"Outputs are replaced only when all three are written; input files are never changed.",
+		Args: exactArgs(1),
+		RunE: runReport,
+	}
+	c.Flags().StringP("out", "o", "", "output `OUTDIR` (default SURVEY/report)")
+	addSettingFlags(c)
+	return c
+}
+
+func runReport(c *cobra.Command, args []string) error {
+	dir := args[0]
+	out, _ := c.Flags().GetString("out")
+	if out == "" {
+		out = filepath.Join(dir, "report")
+	}
+	set, err := loadSettings(c, dir)
+	if err != nil {
+		return err
+	}
+	s, problems := survey.Load(dir)
+	if problems.HasErrors() {
+		return survey.InputError{Problems: problems}
+	}
+	stderr := c.ErrOrStderr()
+	for _, p := range problems {
+		fmt.Fprintln(stderr, p)
+	}
+	items := survey.Assess(s, set.Policy)
+	if len(s.Photos) > 0 {
+		fmt.Fprintf(stderr, "preparing %d photos...\n", len(s.Photos))
+	}
+	files, warnings, err := report.Render(s, items, report.Options{
+		Policy: set.Policy, Photos: set.Photos, Templates: set.Templates, Created: time.Now(), Version: version,
+	})
+	if err != nil {
+		return err
+	}
+	for _, p := range warnings {
+		fmt.Fprintln(stderr, p)
+	}
+	if err := report.WriteFiles(out, files); err != nil {
+		return err
+	}
+	below := 0
+	for _, it := range items {
+		if it.Result.Class == wallloss.AtOrBelowRequired {
+			below++
+		}
+	}
+	w := c.OutOrStdout()
+	for _, f := range files {
+		fmt.Fprintf(w, "wrote %s (%d KB)\n", filepath.Join(out, f.Name), (len(f.Data)+1023)/1024)
+	}
+	fmt.Fprintf(w, "%d CMLs, %d at or below required thickness, %d warnings\n", len(items), below, len(problems)+len(warnings))
+	return nil
+}

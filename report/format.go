@@ -1,0 +1,124 @@
+package report
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+	"time"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+// none is printed where a value cannot be computed.
+const none = "—"
+
+// units formats values for the page in the survey's display units.
+type units struct{ u survey.Unit }
+
+func (f units) thick(mm *float64) string {
+	if mm == nil {
+		return none
+	}
+	return f.u.Format(*mm)
+}
+
+func (f units) rate(mmPerY *float64) string {
+	if mmPerY == nil {
+		return none
+	}
+	return strconv.FormatFloat(f.u.FromMM(*mmPerY), 'f', f.u.Decimals()+1, 64)
+}
+
+// rateUnit is "mm/y" or "in/y".
+func (f units) rateUnit() string { return string(f.u) + "/y" }
+
+func years(y *float64) string {
+	if y == nil {
+		return none
+	}
+	return strconv.FormatFloat(*y, 'f', 1, 64)
+}
+
+func day(t *time.Time) string {
+	if t == nil {
+		return none
+	}
+	return t.Format(dateLayout)
+}
+
+// Status words, most urgent first. Our own bands; the text carries the status.
+const (
+	statusNow     = "AT OR BELOW REQUIRED"
+	statusUnder2  = "under 2 years"
+	statusUnder5  = "2 to 5 years"
+	statusUnder10 = "5 to 10 years"
+	statusOver10  = "10 years or more"
+	statusNoLoss  = "no measurable loss"
+)
+
+// status says in words how urgent a CML is.
+func status(r wallloss.Result) string {
+	switch r.Class {
+	case wallloss.AtOrBelowRequired:
+		return statusNow
+	case wallloss.FiniteLife:
+		switch l := *r.RemainingLifeY; {
+		case l < 2:
+			return statusUnder2
+		case l < 5:
+			return statusUnder5
+		case l < 10:
+			return statusUnder10
+		}
+		return statusOver10
+	case wallloss.NoMeasurableLoss:
+		return statusNoLoss
+	}
+	switch {
+	case r.HasFlag(wallloss.FlagNoReadings):
+		return "no readings"
+	case r.HasFlag(wallloss.FlagNoRequired):
+		return "no required thickness"
+	}
+	return "no rate yet"
+}
+
+// urgent reports whether a status is printed in bold and shaded.
+func urgent(r wallloss.Result) bool {
+	return r.Class == wallloss.AtOrBelowRequired || (r.Class == wallloss.FiniteLife && *r.RemainingLifeY < 5)
+}
+
+// flagMeanings explains each flag code in the methods appendix.
+var flagMeanings = []struct{ Code, Meaning string }{
+	{wallloss.FlagBelowRequired, "the current thickness is at or below the required thickness; remaining life 0."},
+	{wallloss.FlagThicknessIncrease, "a later reading is thicker than an earlier one; that rate is taken as zero. Re-measure."},
+	{wallloss.FlagSingleVisit, "the CML has readings from one visit only."},
+	{wallloss.FlagNominalBased, "the long-term rate starts from nominal thickness at the installed date, not from a measured reading."},
+	{wallloss.FlagNoRate, "no corrosion rate can be computed (one visit and no nominal thickness or installed date)."},
+	{wallloss.FlagNoRequired, "the component has no required thickness, so no remaining life."},
+	{wallloss.FlagNoReadings, "the CML row holds no readings."},
+	{wallloss.FlagNotMeasuredLatest, "the CML was not measured at the survey's latest visit; its results date from an earlier one."},
+}
+
+func flagsText(flags []string) string {
+	if len(flags) == 0 {
+		return ""
+	}
+	return strings.Join(flags, ", ")
+}
+
+func latLon(p *survey.LatLon) string {
+	if p == nil {
+		return "no position"
+	}
+	ns, ew := "N", "E"
+	lat, lon := p.Lat, p.Lon
+	if lat < 0 {
+		ns, lat = "S", -lat
+	}
+	if lon < 0 {
+		ew, lon = "W", -lon
+	}
+	return fmt.Sprintf("%.5f° %s, %.5f° %s", lat, ns, lon, ew)
+}

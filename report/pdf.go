@@ -1,0 +1,186 @@
+package report
+
+import (
+	"bytes"
+	"fmt"
+	"time"
+
+	"github.com/go-pdf/fpdf"
+	"golang.org/x/image/font/gofont/gobold"
+	"golang.org/x/image/font/gofont/gobolditalic"
+	"golang.org/x/image/font/gofont/goitalic"
+	"golang.org/x/image/font/gofont/gomono"
+	"golang.org/x/image/font/gofont/goregular"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+	"github.com/lossline/lossline/templates"
+)
+
+// Options are the settings the report follows.
+type Options struct {
+	Policy    wallloss.Policy
+	Photos    PhotoSettings
+	Templates templates.Set
+	Created   time.Time // printed as the report date and written as the PDF's creation date
+	Version   string    // lossline version, printed on the cover
+}
+
+// Page geometry, mm (A4).
+const (
+	margin     = 15.0
+	bottomGap  = 18.0
+	lineH      = 4.6
+	bodySize   = 9.5
+	smallSize  = 8.0
+	fontFamily = "go"
+	monoFamily = "gomono"
+)
+
+// doc is the PDF being written and what the sections share.
+type doc struct {
+	pdf       *fpdf.Fpdf
+	s         *survey.Survey
+	items     []*survey.Assessed
+	opts      Options
+	u         units
+	landscape bool
+	photos    map[string]*photoEntry
+	warnings  survey.ProblemList
+}
+
+// photoEntry is a photo prepared once, however many CMLs show it.
+type photoEntry struct {
+	photo *survey.Photo
+	prep  preparedPhoto
+	err   error
+}
+
+// PDF renders report.pdf. Photos that cannot be read are left out and come
+// back as warnings.
+func PDF(s *survey.Survey, items []*survey.Assessed, opts Options) ([]byte, survey.ProblemList, error) {
+	pdf := fpdf.New("P", "mm", "A4", "")
+	d := &doc{pdf: pdf, s: s, items: items, opts: opts, u: units{s.Units}, photos: map[string]*photoEntry{}}
+	pdf.SetMargins(margin, margin, margin)
+	pdf.SetAutoPageBreak(true, bottomGap)
+	pdf.AddUTF8FontFromBytes(fontFamily, "", goregular.TTF)
+	pdf.AddUTF8FontFromBytes(fontFamily, "B", gobold.TTF)
+	pdf.AddUTF8FontFromBytes(fontFamily, "I", goitalic.TTF)
+	pdf.AddUTF8FontFromBytes(fontFamily, "BI", gobolditalic.TTF)
+	pdf.AddUTF8FontFromBytes(monoFamily, "", gomono.TTF)
+	pdf.SetTitle(s.Title, true)
+	pdf.SetSubject("Corrosion thickness survey: "+s.Site, true)
+	pdf.SetAuthor(s.Inspector, true)
+	pdf.SetCreator("lossline "+opts.Version, true)
+	pdf.SetCreationDate(opts.Created)
+	pdf.SetModificationDate(opts.Created)
+	pdf.SetCatalogSort(true)
+	pdf.AliasNbPages("{nb}")
+	pdf.SetFooterFunc(d.footer)
+
+	d.prepareAllPhotos()
+	if err := d.sections(); err != nil {
+		return nil, nil, err
+	}
+	if err := pdf.Error(); err != nil {
+		return nil, nil, fmt.Errorf("PDF: %w", err)
+	}
+	var b bytes.Buffer
+	if err := pdf.Output(&b); err != nil {
+		return nil, nil, fmt.Errorf("PDF: %w", err)
+	}
+	return b.Bytes(), d.warnings, nil
+}
+
+func (d *doc) sections() error {
+	d.cover()
+	if err := d.cautions(); err != nil {
+		return err
+	}
+	d.summary()
+	d.ranked()
+	for _, a := range d.s.Assets {
+		d.asset(a)
+	}
+	d.unlinkedPhotos()
+	if err := d.methods(); err != nil {
+		return err
+	}
+	d.warningsAppendix()
+	return nil
+}
+
+func (d *doc) footer() {
+	p := d.pdf
+	p.SetY(-12)
+	d.font("", smallSize)
+	p.SetTextColor(90, 90, 90)
+	w := d.width()
+	p.CellFormat(w*0.75, 5, d.s.Title+" — screening calculations, see cautions", "", 0, "L", false, 0, "")
+	p.CellFormat(w*0.25, 5, fmt.Sprintf("page %d of {nb}", p.PageNo()), "", 0, "R", false, 0, "")
+	p.SetTextColor(0, 0, 0)
+}
+
+// font sets the body family in a style ("", "B", "I", "BI") and size (pt).
+func (d *doc) font(style string, size float64) { d.pdf.SetFont(fontFamily, style, size) }
+
+// newPage starts a page in portrait or landscape.
+func (d *doc) newPage(landscape bool) {
+	d.landscape = landscape
+	if landscape {
+		d.pdf.AddPageFormat("L", fpdf.SizeType{Wd: 210, Ht: 297})
+	} else {
+		d.pdf.AddPageFormat("P", fpdf.SizeType{Wd: 210, Ht: 297})
+	}
+}
+
+// width is the usable text width of the current page.
+func (d *doc) width() float64 {
+	w, _ := d.pdf.GetPageSize()
+	return w - 2*margin
+}
+
+// room reports whether h mm fit above the bottom margin.
+func (d *doc) room(h float64) bool {
+	_, ph := d.pdf.GetPageSize()
+	return d.pdf.GetY()+h <= ph-bottomGap
+}
+
+// need starts a new page unless h mm fit on this one.
+func (d *doc) need(h float64) {
+	if !d.room(h) {
+		d.newPage(d.landscape)
+	}
+}
+
+// heading writes a section heading and its outline entry. Level 0 starts a
+// new page.
+func (d *doc) heading(level int, text string) {
+	switch level {
+	case 0:
+		d.font("B", 16)
+		d.pdf.Bookmark(text, 0, -1)
+		d.pdf.MultiCell(0, 8, text, "", "L", false)
+		d.pdf.Ln(2)
+	case 1:
+		d.need(30)
+		d.pdf.Ln(3)
+		d.font("B", 13)
+		d.pdf.Bookmark(text, 1, -1)
+		d.pdf.MultiCell(0, 6.5, text, "B", "L", false)
+		d.pdf.Ln(2)
+	default:
+		d.need(20)
+		d.pdf.Ln(2)
+		d.font("B", 10.5)
+		d.pdf.MultiCell(0, 5.5, text, "", "L", false)
+		d.pdf.Ln(0.5)
+	}
+	d.font("", bodySize)
+}
+
+// text writes a plain paragraph.
+func (d *doc) text(s string) {
+	d.font("", bodySize)
+	d.pdf.MultiCell(0, lineH, s, "", "L", false)
+}

@@ -1,0 +1,59 @@
+package report
+
+import (
+	"fmt"
+	"strconv"
+)
+
+// methods writes the methods appendix from its template and the settings used.
+func (d *doc) methods() error {
+	text, err := d.opts.Templates.Execute("report/methods.md", map[string]any{
+		"Units":            string(d.s.Units),
+		"IntervalCapYears": d.opts.Policy.IntervalCapYears,
+		"PhotoLongSide":    d.opts.Photos.LongSide,
+		"Flags":            flagMeanings,
+	})
+	if err != nil {
+		return fmt.Errorf("methods template: %w", err)
+	}
+	d.newPage(false)
+	d.heading(0, "Appendix B — Methods")
+	d.markdown(text)
+	d.heading(1, "Settings used for this report")
+	tmpl := "built in"
+	if d.opts.Templates.Override != "" {
+		tmpl = d.opts.Templates.Override + " (files there replace the built-in texts)"
+	}
+	d.keyValues([][2]string{
+		{"Interval cap", fmt.Sprintf("%g years", d.opts.Policy.IntervalCapYears)},
+		{"Governing rate", "larger of long-term and short-term"},
+		{"Year length", "365.25 days"},
+		{"Display units", fmt.Sprintf("%s, rates in %s", d.s.Units, d.u.rateUnit())},
+		{"Photos", fmt.Sprintf("long side at most %d px, JPEG quality %d", d.opts.Photos.LongSide, d.opts.Photos.Quality)},
+		{"Report texts", tmpl},
+		{"Program", "lossline " + d.opts.Version},
+	}, 40)
+	return nil
+}
+
+// warningsAppendix lists every warning with its place.
+func (d *doc) warningsAppendix() {
+	d.newPage(false)
+	d.heading(0, "Appendix C — Warnings")
+	all := append(append(d.s.Problems[:0:0], d.s.Problems...), d.warnings...)
+	if len(all) == 0 {
+		d.text("Reading the survey raised no warnings.")
+		return
+	}
+	d.text("Problems found while reading the survey that did not stop the report. Check each one.")
+	d.pdf.Ln(1)
+	rows := make([][]string, len(all))
+	for i, w := range all {
+		place := w.File
+		if w.Line > 0 {
+			place += ":" + strconv.Itoa(w.Line)
+		}
+		rows[i] = []string{place, w.Message}
+	}
+	d.table([]column{{"File and line", 70, "L"}, {"Warning", d.width() - 70, "L"}}, rows, nil, smallSize)
+}

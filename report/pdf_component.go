@@ -1,0 +1,183 @@
+package report
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+// asset writes an asset's heading and notes, then each of its components.
+func (d *doc) asset(a *survey.Asset) {
+	d.newPage(false)
+	d.heading(0, a.Name)
+	if len(a.Notes) > 0 {
+		d.notes(a.Notes)
+	}
+	for _, c := range a.Components {
+		d.component(a, c)
+	}
+}
+
+// component writes design data, readings, results, scope, notes and photos.
+func (d *doc) component(a *survey.Asset, c *survey.Component) {
+	d.heading(1, c.Name)
+	des := c.Design
+	installed, cons := none, des.Consequence.String()
+	if des.Installed != nil {
+		installed = des.Installed.String()
+	}
+	if cons == "" {
+		cons = "not given"
+	}
+	u := string(d.s.Units)
+	pairs := [][2]string{
+		{"Nominal thickness", d.u.thick(des.NominalMM) + " " + u},
+		{"Required thickness", d.u.thick(des.RequiredMM) + " " + u + " (as written in the checklist)"},
+		{"Installed", installed},
+		{"Consequence", cons},
+		{"CMLs", strconv.Itoa(len(c.CMLs))},
+	}
+	if g := survey.Governing(d.items, c); g != nil {
+		r := g.Result
+		pairs = append(pairs, [2]string{"Governed by", fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",
+			g.CML.ID, status(r), years(r.RemainingLifeY), day(r.NextInspection))})
+	}
+	d.keyValues(pairs, 40)
+	if len(c.CMLs) > 0 {
+		d.readings(c)
+		d.results(c)
+	}
+	if len(c.Scope) > 0 {
+		d.heading(2, "Scope checklist")
+		rows := make([][]string, len(c.Scope))
+		for i, it := range c.Scope {
+			rows[i] = []string{map[bool]string{true: "done", false: "NOT DONE"}[it.Done], stripInline(it.Text)}
+		}
+		d.table([]column{{"Status", 22, "L"}, {"Item", d.width() - 22, "L"}}, rows, func(i int) rowStyle {
+			return rowStyle{bold: !c.Scope[i].Done}
+		}, bodySize-1)
+	}
+	if len(c.Notes) > 0 {
+		d.heading(2, "Notes")
+		d.notes(c.Notes)
+	}
+	var shown []photoShown
+	for _, m := range c.CMLs {
+		for _, ref := range m.PhotoRefs {
+			if e := d.photos[ref]; e != nil {
+				shown = append(shown, photoShown{entry: e, cml: m.ID})
+			}
+		}
+	}
+	if len(shown) > 0 {
+		d.heading(2, "Photos")
+		d.photoGrid(shown)
+	}
+}
+
+// visitsPerTable is how many visit columns fit on a portrait page.
+const visitsPerTable = 6
+
+// readings writes every visit's readings, in tables of at most six visits.
+func (d *doc) readings(c *survey.Component) {
+	d.heading(2, fmt.Sprintf("Readings (%s)", d.s.Units))
+	dates := c.VisitDates
+	for start := 0; start < len(dates) || start == 0; start += visitsPerTable {
+		chunk := dates[start:min(start+visitsPerTable, len(dates))]
+		cols := []column{{"CML", 16, "L"}, {"Location", 52, "L"}}
+		vw := (d.width() - 68) / float64(max(len(chunk), 1))
+		for _, dt := range chunk {
+			cols = append(cols, column{dt.String(), vw, "R"})
+		}
+		rows := make([][]string, len(c.CMLs))
+		for i, m := range c.CMLs {
+			row := []string{m.ID, m.Location}
+			for _, dt := range chunk {
+				row = append(row, d.visitCell(m, dt))
+			}
+			rows[i] = row
+		}
+		d.table(cols, rows, nil, smallSize)
+		if len(dates) == 0 {
+			break
+		}
+	}
+	d.font("I", smallSize)
+	d.pdf.MultiCell(0, 3.8, "Where a visit holds several readings the governing (minimum) reading is shown first and all readings follow in brackets. — means not measured.", "", "L", false)
+	d.font("", bodySize)
+}
+
+func (d *doc) visitCell(m *survey.CML, dt survey.VisitDate) string {
+	for _, v := range m.Visits {
+		if v.Date.Time.Equal(dt.Time) {
+			g := d.u.u.Format(v.Governing())
+			if len(v.ReadingsMM) == 1 {
+				return g
+			}
+			all := make([]string, len(v.ReadingsMM))
+			for i, r := range v.ReadingsMM {
+				all[i] = d.u.u.Format(r)
+			}
+			return g + " (" + strings.Join(all, " ") + ")"
+		}
+	}
+	return none
+}
+
+// results writes each CML's rates, remaining life and dates.
+func (d *doc) results(c *survey.Component) {
+	d.heading(2, "Results")
+	u, ru := string(d.s.Units), d.u.rateUnit()
+	cols := []column{
+		{"CML", 15, "L"}, {"Thickness (" + u + "), date", 24, "L"}, {"Long-term rate (" + ru + ")", 17, "R"},
+		{"Short-term rate (" + ru + ")", 17, "R"}, {"Governing rate (" + ru + ")", 17, "R"}, {"Remaining life (y)", 15, "R"},
+		{"Retirement date", 19, "L"}, {"Next inspection", 21, "L"}, {"Status and flags", 35, "L"},
+	}
+	var rows [][]string
+	var res []wallloss.Result
+	for _, m := range c.CMLs {
+		it := d.assessed(m)
+		if it == nil {
+			continue
+		}
+		r := it.Result
+		thick := d.u.thick(r.ThicknessMM)
+		if r.CurrentDate != nil {
+			thick += ", " + day(r.CurrentDate)
+		}
+		next := day(r.NextInspection)
+		switch r.NextBasis {
+		case wallloss.BasisHalfLife:
+			next += " (half life)"
+		case wallloss.BasisCap:
+			next += fmt.Sprintf(" (%g-year cap)", d.opts.Policy.IntervalCapYears)
+		case wallloss.BasisNow:
+			next += " (now)"
+		}
+		st := status(r)
+		if len(r.Flags) > 0 {
+			st += "; " + flagsText(r.Flags)
+		}
+		rows = append(rows, []string{m.ID, thick, d.u.rate(r.RateLongMMPerY), d.u.rate(r.RateShortMMPerY),
+			d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.Retirement), next, st})
+		res = append(res, r)
+	}
+	d.table(cols, rows, func(i int) rowStyle { return rowStyle{bold: urgent(res[i]), shade: urgent(res[i])} }, smallSize)
+}
+
+func (d *doc) assessed(m *survey.CML) *survey.Assessed {
+	for _, it := range d.items {
+		if it.CML == m {
+			return it
+		}
+	}
+	return nil
+}
+
+// stripInline removes Markdown emphasis markers for table cells.
+func stripInline(s string) string {
+	return strings.NewReplacer("**", "", "__", "", "`", "").Replace(s)
+}

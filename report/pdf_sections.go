@@ -1,0 +1,237 @@
+package report
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+// cover writes the first page: what was surveyed, by whom, and the headline figures.
+func (d *doc) cover() {
+	p := d.pdf
+	d.newPage(false)
+	p.Bookmark("Cover", 0, -1)
+	p.SetY(28)
+	d.font("B", 10)
+	p.SetTextColor(80, 80, 80)
+	p.CellFormat(0, 6, "CORROSION THICKNESS SURVEY REPORT", "", 1, "L", false, 0, "")
+	p.SetTextColor(0, 0, 0)
+	d.font("B", 20)
+	p.MultiCell(0, 9, d.s.Title, "", "L", false)
+	p.Ln(2)
+	d.font("", 12)
+	p.MultiCell(0, 6, d.s.Site, "", "L", false)
+	p.Ln(5)
+
+	var assets []string
+	for _, a := range d.s.Assets {
+		assets = append(assets, a.Name)
+	}
+	for _, kv := range [][2]string{
+		{"Survey date", d.s.Date.Format(dateLayout)},
+		{"Inspector", d.s.Inspector},
+		{"Assets", strings.Join(assets, "\n")},
+		{"Thickness units", fmt.Sprintf("%s (rates in %s)", d.s.Units, d.u.rateUnit())},
+		{"Report produced", d.opts.Created.Format(dateLayout) + " by lossline " + d.opts.Version},
+	} {
+		d.font("B", bodySize)
+		y := p.GetY()
+		p.CellFormat(38, lineH+0.6, kv[0], "", 0, "L", false, 0, "")
+		d.font("", bodySize)
+		p.SetXY(margin+38, y)
+		p.MultiCell(0, lineH+0.6, kv[1], "", "L", false)
+	}
+	p.Ln(6)
+	d.headlines()
+}
+
+// headlines draws the four figures an owner reads first.
+func (d *doc) headlines() {
+	p := d.pdf
+	measured, below := 0, 0
+	var shortest, earliest *survey.Assessed
+	for _, it := range d.items {
+		r := it.Result
+		if r.ThicknessMM != nil && !r.HasFlag(wallloss.FlagNotMeasuredLatest) {
+			measured++
+		}
+		if r.Class == wallloss.AtOrBelowRequired {
+			below++
+		}
+		if r.RemainingLifeY != nil && (shortest == nil || *r.RemainingLifeY < *shortest.Result.RemainingLifeY) {
+			shortest = it
+		}
+		if r.NextInspection != nil && (earliest == nil || r.NextInspection.Before(*earliest.Result.NextInspection)) {
+			earliest = it
+		}
+	}
+	type figure struct{ value, label string }
+	figs := []figure{
+		{fmt.Sprintf("%d of %d", measured, len(d.items)), "CMLs measured at this visit"},
+		{strconv.Itoa(below), "CMLs at or below required thickness"},
+		{none, "shortest remaining life"},
+		{none, "earliest next inspection"},
+	}
+	if shortest != nil {
+		figs[2].value = years(shortest.Result.RemainingLifeY) + " years"
+		figs[2].label += " (CML " + shortest.CML.ID + ")"
+	}
+	if earliest != nil {
+		figs[3].value = day(earliest.Result.NextInspection)
+		figs[3].label += " (CML " + earliest.CML.ID + ")"
+	}
+	w := (d.width() - 3*3) / 4
+	y := p.GetY()
+	for i, f := range figs {
+		x := margin + float64(i)*(w+3)
+		p.SetFillColor(240, 240, 240)
+		p.Rect(x, y, w, 26, "FD")
+		p.SetXY(x, y+3)
+		d.font("B", 15)
+		p.CellFormat(w, 8, f.value, "", 0, "C", false, 0, "")
+		p.SetXY(x+2, y+13)
+		d.font("", smallSize)
+		p.MultiCell(w-4, 3.6, f.label, "", "C", false)
+	}
+	p.SetXY(margin, y+32)
+}
+
+// cautions writes the boxed cautions from the template.
+func (d *doc) cautions() error {
+	text, err := d.opts.Templates.Execute("report/cautions.md", nil)
+	if err != nil {
+		return fmt.Errorf("cautions template: %w", err)
+	}
+	p := d.pdf
+	d.need(80)
+	y0 := p.GetY()
+	p.SetLeftMargin(margin + 4)
+	p.SetRightMargin(margin + 4)
+	p.SetXY(margin+4, y0+3)
+	d.font("B", 11)
+	p.Bookmark("Cautions", 0, -1)
+	p.CellFormat(0, 6, "Cautions", "", 1, "L", false, 0, "")
+	d.markdown(text)
+	p.SetLeftMargin(margin)
+	p.SetRightMargin(margin)
+	p.SetLineWidth(0.5)
+	p.Rect(margin, y0, d.width(), p.GetY()-y0+1, "D")
+	p.SetLineWidth(0.2)
+	p.SetXY(margin, p.GetY()+4)
+	return nil
+}
+
+// summary writes one row per component (governed by its most urgent CML), the
+// scope limitations and the survey's general notes.
+func (d *doc) summary() {
+	d.newPage(false)
+	d.heading(0, "Summary")
+	nComp := 0
+	for _, a := range d.s.Assets {
+		nComp += len(a.Components)
+	}
+	d.text(fmt.Sprintf("%d CMLs on %d components of %d assets. Each component is governed by its most urgent CML; "+
+		"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
+		len(d.items), nComp, len(d.s.Assets), d.s.Units, d.u.rateUnit()))
+	d.pdf.Ln(2)
+	cols := []column{
+		{"Asset / component", 52, "L"}, {"CMLs", 11, "R"}, {"Governing CML", 18, "L"},
+		{"Thickness / required", 24, "R"}, {"Rate", 15, "R"}, {"Remaining life", 17, "R"},
+		{"Next inspection", 20, "L"}, {"Status", 23, "L"},
+	}
+	var rows [][]string
+	var styles []rowStyle
+	for _, a := range d.s.Assets {
+		for _, c := range a.Components {
+			g := survey.Governing(d.items, c)
+			row := []string{a.Name + " / " + c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
+			st := rowStyle{}
+			if g != nil {
+				r := g.Result
+				row[2] = g.CML.ID
+				row[3] = d.u.thick(r.ThicknessMM) + " / " + d.u.thick(c.Design.RequiredMM)
+				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), status(r)
+				st = rowStyle{bold: urgent(r), shade: urgent(r)}
+			}
+			rows = append(rows, row)
+			styles = append(styles, st)
+		}
+	}
+	d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
+
+	d.heading(1, "Scope limitations")
+	var open [][]string
+	for _, a := range d.s.Assets {
+		for _, c := range a.Components {
+			for _, it := range c.Scope {
+				if !it.Done {
+					open = append(open, []string{a.Name + " / " + c.Name, it.Text})
+				}
+			}
+		}
+	}
+	if len(open) == 0 {
+		d.text("Every item of the scope checklists was done.")
+	} else {
+		d.text("These items of the scope checklists were not done. The results do not cover them.")
+		d.pdf.Ln(1)
+		d.table([]column{{"Asset / component", 70, "L"}, {"Not done", d.width() - 70, "L"}}, open, nil, smallSize)
+	}
+	if len(d.s.Notes) > 0 {
+		d.heading(1, "Survey notes")
+		d.notes(d.s.Notes)
+	}
+}
+
+// ranked writes every CML of the survey in rank order, on landscape pages.
+func (d *doc) ranked() {
+	d.newPage(true)
+	d.heading(0, "Ranked list of CMLs")
+	d.text(fmt.Sprintf("Most urgent first: at or below required, then shortest remaining life; ties by consequence, then CML id. "+
+		"Thicknesses in %s, rates in %s (the governing rate, the larger of long- and short-term). Rows at or below "+
+		"required or under 5 years of remaining life are in bold and shaded; the status column says why.", d.s.Units, d.u.rateUnit()))
+	d.pdf.Ln(2)
+	u := string(d.s.Units)
+	cols := []column{
+		{"Rank", 10, "R"}, {"Asset / component", 56, "L"}, {"CML", 16, "L"},
+		{"Thickness (" + u + ")", 19, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit() + ")", 17, "R"},
+		{"Remaining life (y)", 17, "R"}, {"Retirement date", 20, "L"}, {"Next inspection", 20, "L"},
+		{"Conse-quence", 16, "L"}, {"Status", 25, "L"}, {"Flags", 33, "L"},
+	}
+	rows := make([][]string, len(d.items))
+	for i, it := range d.items {
+		r := it.Result
+		cons := it.Component.Design.Consequence.String()
+		if cons == "" {
+			cons = none
+		}
+		rows[i] = []string{
+			strconv.Itoa(it.Rank), it.Asset.Name + " / " + it.Component.Name, it.CML.ID,
+			d.u.thick(r.ThicknessMM), d.u.thick(it.Component.Design.RequiredMM), d.u.rate(r.RateMMPerY),
+			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, status(r), flagsText(r.Flags),
+		}
+	}
+	d.table(cols, rows, func(i int) rowStyle {
+		u := urgent(d.items[i].Result)
+		return rowStyle{bold: u, shade: u}
+	}, smallSize)
+}
+
+// notes writes checklist notes: paragraphs as paragraphs, bullets as bullets.
+func (d *doc) notes(notes []survey.Note) {
+	var b strings.Builder
+	for i, n := range notes {
+		if n.Bullet {
+			b.WriteString("- " + n.Markdown + "\n")
+			if i+1 < len(notes) && !notes[i+1].Bullet {
+				b.WriteString("\n")
+			}
+		} else {
+			b.WriteString(n.Markdown + "\n\n")
+		}
+	}
+	d.markdown(b.String())
+}

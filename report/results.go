@@ -1,0 +1,120 @@
+package report
+
+import (
+	"math"
+	"time"
+
+	"github.com/lossline/lossline/survey"
+)
+
+// Results is the content of results.json: the contract other tools read.
+// Thicknesses are in mm, rates in mm/y, lives in years, whatever the survey's
+// display units; null where a value cannot be computed.
+type Results struct {
+	Survey   SurveyInfo `json:"survey"`
+	Items    []Item     `json:"items"`
+	Warnings []Warning  `json:"warnings"`
+}
+
+// SurveyInfo is the checklist's front matter.
+type SurveyInfo struct {
+	Title     string `json:"title"`
+	Site      string `json:"site"`
+	Date      string `json:"date"`
+	Inspector string `json:"inspector"`
+	Units     string `json:"units"`
+}
+
+// Item is one CML, in rank order.
+type Item struct {
+	Rank              int      `json:"rank"`
+	Asset             string   `json:"asset"`
+	Component         string   `json:"component"`
+	CML               string   `json:"cml"`
+	Location          string   `json:"location"`
+	ThicknessDate     *string  `json:"thickness_date"`
+	ThicknessMM       *float64 `json:"thickness_mm"`
+	RequiredMM        *float64 `json:"required_mm"`
+	NominalMM         *float64 `json:"nominal_mm"`
+	RateLongMMPerY    *float64 `json:"rate_long_mm_per_y"`
+	RateShortMMPerY   *float64 `json:"rate_short_mm_per_y"`
+	RateMMPerY        *float64 `json:"rate_mm_per_y"`
+	RemainingLifeY    *float64 `json:"remaining_life_y"`
+	RetirementDate    *string  `json:"retirement_date"`
+	NextInspection    *string  `json:"next_inspection"`
+	NextInspectionWhy *string  `json:"next_inspection_basis"`
+	Consequence       *string  `json:"consequence"`
+	Flags             []string `json:"flags"`
+	Photos            []string `json:"photos"`
+	Latitude          *float64 `json:"latitude"`
+	Longitude         *float64 `json:"longitude"`
+}
+
+// Warning is a problem that did not stop the report.
+type Warning struct {
+	File    string `json:"file"`
+	Line    int    `json:"line"`
+	Message string `json:"message"`
+}
+
+// BuildResults assembles the results of an assessed survey. warnings are the
+// reader's warnings plus any raised while rendering.
+func BuildResults(s *survey.Survey, items []*survey.Assessed, warnings survey.ProblemList) Results {
+	r := Results{
+		Survey: SurveyInfo{Title: s.Title, Site: s.Site, Date: s.Date.Format(dateLayout), Inspector: s.Inspector, Units: string(s.Units)},
+		Items:  []Item{}, Warnings: []Warning{},
+	}
+	for _, it := range items {
+		res, d := it.Result, it.Component.Design
+		item := Item{
+			Rank: it.Rank, Asset: it.Asset.Name, Component: it.Component.Name, CML: it.CML.ID, Location: it.CML.Location,
+			ThicknessDate:   dateOf(res.CurrentDate),
+			ThicknessMM:     round(res.ThicknessMM, 4),
+			RequiredMM:      round(d.RequiredMM, 4),
+			NominalMM:       round(d.NominalMM, 4),
+			RateLongMMPerY:  round(res.RateLongMMPerY, 6),
+			RateShortMMPerY: round(res.RateShortMMPerY, 6),
+			RateMMPerY:      round(res.RateMMPerY, 6),
+			RemainingLifeY:  round(res.RemainingLifeY, 3),
+			RetirementDate:  dateOf(res.Retirement),
+			NextInspection:  dateOf(res.NextInspection),
+			Flags:           append([]string{}, res.Flags...),
+			Photos:          append([]string{}, it.CML.PhotoRefs...),
+		}
+		if res.NextBasis != "" {
+			item.NextInspectionWhy = &res.NextBasis
+		}
+		if c := d.Consequence.String(); c != "" {
+			item.Consequence = &c
+		}
+		if g := it.CML.GPS; g != nil {
+			item.Latitude, item.Longitude = &g.Lat, &g.Lon
+		}
+		r.Items = append(r.Items, item)
+	}
+	for _, w := range warnings {
+		r.Warnings = append(r.Warnings, Warning{File: w.File, Line: w.Line, Message: w.Message})
+	}
+	return r
+}
+
+const dateLayout = "2006-01-02"
+
+func dateOf(t *time.Time) *string {
+	if t == nil {
+		return nil
+	}
+	s := t.Format(dateLayout)
+	return &s
+}
+
+// round keeps d decimals; results.json carries more digits than the report
+// prints so a reader can recompute, but not float noise.
+func round(v *float64, d int) *float64 {
+	if v == nil {
+		return nil
+	}
+	p := math.Pow(10, float64(d))
+	x := math.Round(*v*p) / p
+	return &x
+}
