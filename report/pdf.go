@@ -63,6 +63,7 @@ func PDF(s *survey.Survey, items []*survey.Assessed, opts Options) ([]byte, surv
 	d := &doc{pdf: pdf, s: s, items: items, opts: opts, u: units{s.Units}, photos: map[string]*photoEntry{}}
 	pdf.SetMargins(margin, margin, margin)
 	pdf.SetAutoPageBreak(true, bottomGap)
+	pdf.SetCellMargin(0) // tables pad their own cells; SplitText then measures the same width
 	pdf.AddUTF8FontFromBytes(fontFamily, "", goregular.TTF)
 	pdf.AddUTF8FontFromBytes(fontFamily, "B", gobold.TTF)
 	pdf.AddUTF8FontFromBytes(fontFamily, "I", goitalic.TTF)
@@ -132,6 +133,12 @@ func (d *doc) newPage(landscape bool) {
 	} else {
 		d.pdf.AddPageFormat("P", fpdf.SizeType{Wd: 210, Ht: 297})
 	}
+}
+
+// left is the current left margin.
+func (d *doc) left() float64 {
+	l, _, _, _ := d.pdf.GetMargins()
+	return l
 }
 
 // width is the usable text width of the current page.

@@ -73,6 +73,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		}
 	}
 	if len(shown) > 0 {
+		d.need(photoMaxH + 20) // keep the heading with the first row
 		d.heading(2, "Photos")
 		d.photoGrid(shown)
 	}
@@ -132,9 +133,9 @@ func (d *doc) results(c *survey.Component) {
 	d.heading(2, "Results")
 	u, ru := string(d.s.Units), d.u.rateUnit()
 	cols := []column{
-		{"CML", 15, "L"}, {"Thickness (" + u + "), date", 24, "L"}, {"Long-term rate (" + ru + ")", 17, "R"},
-		{"Short-term rate (" + ru + ")", 17, "R"}, {"Governing rate (" + ru + ")", 17, "R"}, {"Remaining life (y)", 15, "R"},
-		{"Retirement date", 19, "L"}, {"Next inspection", 21, "L"}, {"Status and flags", 35, "L"},
+		{"CML", 14, "L"}, {"Thick- ness (" + u + ")", 16, "R"}, {"Long- term rate (" + ru + ")", 17, "R"},
+		{"Short- term rate (" + ru + ")", 17, "R"}, {"Governing rate (" + ru + ")", 18, "R"}, {"Remaining life (y)", 18, "R"},
+		{"Retirement date", 21, "L"}, {"Next inspection", 23, "L"}, {"Status and flags", 36, "L"},
 	}
 	var rows [][]string
 	var res []wallloss.Result
@@ -145,8 +146,8 @@ func (d *doc) results(c *survey.Component) {
 		}
 		r := it.Result
 		thick := d.u.thick(r.ThicknessMM)
-		if r.CurrentDate != nil {
-			thick += ", " + day(r.CurrentDate)
+		if r.HasFlag(wallloss.FlagNotMeasuredLatest) {
+			thick += " (" + day(r.CurrentDate) + ")"
 		}
 		next := day(r.NextInspection)
 		switch r.NextBasis {

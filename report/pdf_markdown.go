@@ -33,11 +33,11 @@ func (d *doc) mdBlock(n ast.Node, src []byte, indent float64) {
 		d.need(18)
 		p.Ln(1.5)
 		d.font("B", size)
-		p.SetX(margin + indent)
+		p.SetX(d.left() + indent)
 		d.inline(n, src, "B", size, lineH+1)
 		p.Ln(lineH + 1.5)
 	case *ast.Paragraph, *ast.TextBlock:
-		p.SetX(margin + indent)
+		p.SetX(d.left() + indent)
 		d.inline(n, src, "", bodySize, lineH)
 		p.Ln(lineH + 1.2)
 	case *ast.List:
@@ -46,7 +46,7 @@ func (d *doc) mdBlock(n ast.Node, src []byte, indent float64) {
 		}
 		p.Ln(0.8)
 	default:
-		p.SetX(margin + indent)
+		p.SetX(d.left() + indent)
 		d.text(strings.TrimSpace(string(n.Lines().Value(src))))
 	}
 }
@@ -56,18 +56,19 @@ func (d *doc) bullet(item ast.Node, src []byte, indent float64) {
 	p := d.pdf
 	d.need(lineH * 2)
 	d.font("", bodySize)
-	p.SetX(margin + indent)
+	p.SetX(d.left() + indent)
 	p.CellFormat(4, lineH, "•", "", 0, "L", false, 0, "")
-	p.SetLeftMargin(margin + indent + 4)
+	left := d.left()
+	p.SetLeftMargin(left + 4)
 	for c := item.FirstChild(); c != nil; c = c.NextSibling() {
 		if _, nested := c.(*ast.List); nested {
 			p.Ln(lineH)
-			d.mdBlock(c, src, indent+4)
+			d.mdBlock(c, src, 0)
 			continue
 		}
 		d.inline(c, src, "", bodySize, lineH)
 	}
-	p.SetLeftMargin(margin)
+	p.SetLeftMargin(left)
 	p.Ln(lineH + 0.6)
 }
 

@@ -137,17 +137,18 @@ func (d *doc) summary() {
 		"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
 		len(d.items), nComp, len(d.s.Assets), d.s.Units, d.u.rateUnit()))
 	d.pdf.Ln(2)
+	u := string(d.s.Units)
 	cols := []column{
-		{"Asset / component", 52, "L"}, {"CMLs", 11, "R"}, {"Governing CML", 18, "L"},
-		{"Thickness / required", 24, "R"}, {"Rate", 15, "R"}, {"Remaining life", 17, "R"},
-		{"Next inspection", 20, "L"}, {"Status", 23, "L"},
+		{"Component", 50, "L"}, {"CMLs", 11, "R"}, {"Governing CML", 18, "L"},
+		{"Thickness / required (" + u + ")", 26, "R"}, {"Rate (" + d.u.rateUnit() + ")", 15, "R"}, {"Remaining life (y)", 18, "R"},
+		{"Next inspection", 21, "L"}, {"Status", 21, "L"},
 	}
-	var rows [][]string
-	var styles []rowStyle
 	for _, a := range d.s.Assets {
+		var rows [][]string
+		var styles []rowStyle
 		for _, c := range a.Components {
 			g := survey.Governing(d.items, c)
-			row := []string{a.Name + " / " + c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
+			row := []string{c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
 			st := rowStyle{}
 			if g != nil {
 				r := g.Result
@@ -159,8 +160,9 @@ func (d *doc) summary() {
 			rows = append(rows, row)
 			styles = append(styles, st)
 		}
+		d.heading(2, a.Name)
+		d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
 	}
-	d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
 
 	d.heading(1, "Scope limitations")
 	var open [][]string
@@ -196,10 +198,10 @@ func (d *doc) ranked() {
 	d.pdf.Ln(2)
 	u := string(d.s.Units)
 	cols := []column{
-		{"Rank", 10, "R"}, {"Asset / component", 56, "L"}, {"CML", 16, "L"},
-		{"Thickness (" + u + ")", 19, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit() + ")", 17, "R"},
-		{"Remaining life (y)", 17, "R"}, {"Retirement date", 20, "L"}, {"Next inspection", 20, "L"},
-		{"Conse-quence", 16, "L"}, {"Status", 25, "L"}, {"Flags", 33, "L"},
+		{"Rank", 11, "R"}, {"Asset / component", 50, "L"}, {"CML", 15, "L"},
+		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit() + ")", 16, "R"},
+		{"Remaining life (y)", 19, "R"}, {"Retirement date", 21, "L"}, {"Next inspection", 21, "L"},
+		{"Conse- quence", 17, "L"}, {"Status", 27, "L"}, {"Flags", 34, "L"},
 	}
 	rows := make([][]string, len(d.items))
 	for i, it := range d.items {

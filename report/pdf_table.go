@@ -1,5 +1,7 @@
 package report
 
+import "strings"
+
 // column is one column of a table: its heading, width (mm) and alignment
 // ("L", "C", "R").
 type column struct {
@@ -17,11 +19,12 @@ const cellPad = 1.2
 // table draws rows under a header that is repeated at the top of every page
 // the table runs onto. Cells wrap; a row never splits across pages.
 func (d *doc) table(cols []column, rows [][]string, style func(i int) rowStyle, size float64) {
-	d.font("B", size)
+	hs := d.headerSize(cols, size)
+	d.font("B", hs)
 	lh := size * 0.45
-	headerH := d.rowHeight(cols, titles(cols), lh)
+	headerH := d.rowHeight(cols, titles(cols), hs*0.45)
 	d.need(headerH + lh + 2*cellPad)
-	d.tableRow(cols, titles(cols), lh, headerH, rowStyle{bold: true, shade: true}, size)
+	d.tableRow(cols, titles(cols), hs*0.45, headerH, rowStyle{bold: true, shade: true}, hs)
 	for i, row := range rows {
 		st := rowStyle{}
 		if style != nil {
@@ -31,14 +34,34 @@ func (d *doc) table(cols []column, rows [][]string, style func(i int) rowStyle, 
 		h := d.rowHeight(cols, row, lh)
 		if !d.room(h) {
 			d.newPage(d.landscape)
-			d.font("B", size)
-			d.tableRow(cols, titles(cols), lh, headerH, rowStyle{bold: true, shade: true}, size)
+			d.font("B", hs)
+			d.tableRow(cols, titles(cols), hs*0.45, headerH, rowStyle{bold: true, shade: true}, hs)
 			d.font(boldStyle(st.bold), size)
 		}
 		d.tableRow(cols, row, lh, h, st, size)
 	}
 	d.font("", bodySize)
 	d.pdf.Ln(2)
+}
+
+// headerSize is the largest font size up to size at which no word of any
+// column title is wider than its column, so titles wrap only between words.
+func (d *doc) headerSize(cols []column, size float64) float64 {
+	for ; size > 5.5; size -= 0.25 {
+		d.font("B", size)
+		fits := true
+		for _, c := range cols {
+			for _, w := range strings.Fields(c.title) {
+				if d.pdf.GetStringWidth(w) > c.width-2*cellPad {
+					fits = false
+				}
+			}
+		}
+		if fits {
+			break
+		}
+	}
+	return size
 }
 
 func titles(cols []column) []string {
@@ -91,9 +114,19 @@ func (d *doc) tableRow(cols []column, row []string, lh, h float64, st rowStyle, 
 
 // keyValues draws a two-column table of labels and values.
 func (d *doc) keyValues(pairs [][2]string, labelW float64) {
-	rows := make([][]string, len(pairs))
-	for i, kv := range pairs {
-		rows[i] = []string{kv[0], kv[1]}
+	cols := []column{{"", labelW, "L"}, {"", d.width() - labelW, "L"}}
+	lh := bodySize * 0.45
+	for _, kv := range pairs {
+		d.font("", bodySize)
+		h := d.rowHeight(cols, kv[:], lh)
+		d.need(h)
+		x0, y := d.pdf.GetX(), d.pdf.GetY()
+		d.font("B", bodySize)
+		d.tableRow(cols[:1], kv[:1], lh, h, rowStyle{shade: true}, bodySize)
+		d.pdf.SetXY(x0+labelW, y)
+		d.font("", bodySize)
+		d.tableRow(cols[1:], kv[1:], lh, h, rowStyle{}, bodySize)
+		d.pdf.SetX(x0)
 	}
-	d.table([]column{{"Item", labelW, "L"}, {"Value", d.width() - labelW, "L"}}, rows, nil, bodySize)
+	d.pdf.Ln(2)
 }

@@ -49,7 +49,7 @@ const (
 	FlagNoRate            = "no-rate"
 	FlagNoRequired        = "no-required"
 	FlagNoReadings        = "no-readings"
-	FlagNotMeasuredLatest = "not-measured-this-visit"
+	FlagNotMeasuredLatest = "not-remeasured"
 )
 
 // Result is the outcome for one CML. Nil pointers are values that cannot be computed.
