@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strings"
 
 	"github.com/lossline/lossline/survey"
 )
@@ -30,6 +31,9 @@ func run(args []string, stdout, stderr io.Writer) int {
 	root := newRoot(stdout, stderr)
 	root.SetArgs(args)
 	err := root.Execute()
+	if err != nil && isCobraUsage(err) {
+		err = usageError{err}
+	}
 	switch e := err.(type) {
 	case nil:
 		return exitOK
@@ -48,6 +52,13 @@ func run(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "lossline: %v\n", err)
 		return exitOther
 	}
+}
+
+// isCobraUsage recognises the usage errors cobra raises itself.
+func isCobraUsage(err error) bool {
+	msg := err.Error()
+	return strings.HasPrefix(msg, "unknown command") || strings.HasPrefix(msg, "unknown flag") ||
+		strings.HasPrefix(msg, "unknown shorthand flag")
 }
 
 // usageError is a wrong command line (exit 2).

@@ -1,0 +1,192 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"testing"
+)
+
+func runCLI(t *testing.T, args ...string) (int, string, string) {
+	t.Helper()
+	var out, errb bytes.Buffer
+	code := run(args, &out, &errb)
+	return code, out.String(), errb.String()
+}
+
+func TestExitCodes(t *testing.T) {
+	for _, c := range []struct {
+		args []string
+		code int
+		want string // in stdout or stderr
+	}{
+		{[]string{"check", "../../testdata/demo"}, exitOK, "0 errors, 0 warnings"},
+		{[]string{"check", "../../testdata/broken"}, exitBadInput, "broken/survey.md:29: reading \"abc\" is not a number"},
+		{[]string{"report", "../../testdata/bad/duplicate-cml", "-o", "OUT"}, exitBadInput, "survey.md:20: CML C1 is listed twice"},
+		{[]string{"check", "../../testdata/no-such-survey"}, exitBadInput, "survey.md: no checklist"},
+		{[]string{"report"}, exitUsage, "accepts 1 arg"},
+		{[]string{"report", "a", "--no-such-flag"}, exitUsage, "unknown flag"},
+		{[]string{"frobnicate"}, exitUsage, "unknown command"},
+		{[]string{"check", "../../testdata/demo", "--interval-cap-years", "0"}, exitBadInput, "interval-cap-years must be between"},
+	} {
+		for i, a := range c.args {
+			if a == "OUT" {
+				c.args[i] = t.TempDir()
+			}
+		}
+		code, out, errOut := runCLI(t, c.args...)
+		if code != c.code || !strings.Contains(out+errOut, c.want) {
+			t.Errorf("lossline %v: exit %d, want %d; output lacks %q?\n%s%s", c.args, code, c.code, c.want, out, errOut)
+		}
+	}
+}
+
+// Settings precedence: defaults < lossline.yaml < --config < LOSSLINE_* < flags.
+func TestSettingsPrecedence(t *testing.T) {
+	dir := t.TempDir()
+	os.WriteFile(filepath.Join(dir, SettingsFile), []byte("interval-cap-years: 8\nphoto-quality: 70\n"), 0o644)
+	extra := filepath.Join(dir, "extra.yaml")
+	os.WriteFile(extra, []byte("interval-cap-years: 6\n"), 0o644)
+	load := func(env string, args ...string) settings {
+		t.Helper()
+		t.Setenv("LOSSLINE_INTERVAL_CAP_YEARS", env)
+		if env == "" {
+			os.Unsetenv("LOSSLINE_INTERVAL_CAP_YEARS")
+		}
+		c := newReportCmd()
+		if err := c.ParseFlags(args); err != nil {
+			t.Fatal(err)
+		}
+		s, err := loadSettings(c, dir)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return s
+	}
+	if s := load(""); s.Policy.IntervalCapYears != 8 || s.Photos.Quality != 70 || s.Photos.LongSide != 1600 {
+		t.Errorf("survey file: %+v", s)
+	}
+	if s := load("", "--config", extra); s.Policy.IntervalCapYears != 6 || s.Photos.Quality != 70 {
+		t.Errorf("--config: %+v", s)
+	}
+	if s := load("5", "--config", extra); s.Policy.IntervalCapYears != 5 {
+		t.Errorf("environment: %+v", s)
+	}
+	if s := load("5", "--config", extra, "--interval-cap-years", "3"); s.Policy.IntervalCapYears != 3 {
+		t.Errorf("flag: %+v", s)
+	}
+	os.WriteFile(filepath.Join(dir, SettingsFile), []byte("interval-cap-yeras: 8\n"), 0o644)
+	c := newReportCmd()
+	if _, err := loadSettings(c, dir); err == nil || !strings.Contains(err.Error(), `unknown setting "interval-cap-yeras"`) {
+		t.Errorf("misspelt key: %v", err)
+	}
+}
+
+func TestNewNeverOverwrites(t *testing.T) {
+	dir := filepath.Join(t.TempDir(), "site-2027")
+	if code, out, errOut := runCLI(t, "new", dir); code != exitOK {
+		t.Fatalf("new: %d %s %s", code, out, errOut)
+	}
+	// The scaffold is a valid survey: check finds no errors.
+	if code, out, _ := runCLI(t, "check", dir); code != exitOK {
+		t.Errorf("check of a new survey: exit %d\n%s", code, out)
+	}
+	os.WriteFile(filepath.Join(dir, "survey.md"), []byte("mine"), 0o644)
+	if code, _, errOut := runCLI(t, "new", dir); code != exitBadInput || !strings.Contains(errOut, "already exists") {
+		t.Errorf("second new: exit %d %s", code, errOut)
+	}
+	if b, _ := os.ReadFile(filepath.Join(dir, "survey.md")); string(b) != "mine" {
+		t.Error("survey.md overwritten")
+	}
+}
+
+// poppler reads the PDF back: an independent reader of what we wrote.
+func poppler(t *testing.T) {
+	t.Helper()
+	for _, tool := range []string{"pdftotext", "pdfimages", "pdfinfo"} {
+		if _, err := exec.LookPath(tool); err != nil {
+			if os.Getenv("LOSSLINE_REQUIRE_POPPLER") != "" {
+				t.Fatalf("%s not installed (poppler-utils)", tool)
+			}
+			t.Skipf("%s not installed (poppler-utils)", tool)
+		}
+	}
+}
+
+// The built binary on the demo survey: three files, and a PDF whose text,
+// pages and images poppler reads back.
+func TestEndToEndDemo(t *testing.T) {
+	poppler(t)
+	bin := filepath.Join(t.TempDir(), "lossline")
+	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
+		t.Fatalf("build: %v\n%s", err, out)
+	}
+	out := t.TempDir()
+	cmd := exec.Command(bin, "report", "../../testdata/demo", "-o", out)
+	if b, err := cmd.CombinedOutput(); err != nil {
+		t.Fatalf("report: %v\n%s", err, b)
+	}
+	for _, f := range []string{"report.pdf", "results.json", "results.csv"} {
+		if st, err := os.Stat(filepath.Join(out, f)); err != nil || st.Size() == 0 {
+			t.Errorf("%s missing or empty", f)
+		}
+	}
+	pdf := filepath.Join(out, "report.pdf")
+	text, err := exec.Command("pdftotext", "-layout", pdf, "-").Output()
+	if err != nil {
+		t.Fatal(err)
+	}
+	txt := string(text)
+	for _, want := range []string{
+		"CORROSION THICKNESS SURVEY REPORT", "Cautions", "Screening calculations, not an engineering assessment",
+		"Summary", "Scope limitations", "Ranked list of CMLs", "Tank T-101", "Shell course 1", "Readings (mm)", "Results",
+		"Scope checklist", "Appendix A — Photos not linked to a CML", "Appendix B — Methods", "Appendix C — Warnings",
+		"AT OR BELOW REQUIRED", "below-required", "thickness-increase", "nominal-based",
+		"10.96 (11.02 10.96 11.10)", // multi-reading cell: governing first
+		"API 570 §7.1.1", "µA/cm²", "270°", // Unicode through the embedded font
+		"Magnetic-particle test at nozzle N3",
+	} {
+		if !strings.Contains(txt, want) {
+			t.Errorf("PDF text lacks %q", want)
+		}
+	}
+	// T1-04: remaining life (10.41 − 9.6)/0.14894 = 5.4 y, next inspection 2029-08-07 (half life).
+	if !regexp.MustCompile(`T1-04\s+10\.41\s+0\.147\s+0\.149\s+0\.149\s+5\.4\s+2032-04-26\s+2029-08-07`).MatchString(txt) {
+		t.Error("results row of T1-04 not found with its computed values")
+	}
+	info, _ := exec.Command("pdfinfo", pdf).Output()
+	pages := regexp.MustCompile(`Pages:\s+(\d+)`).FindStringSubmatch(string(info))
+	if pages == nil {
+		t.Fatalf("pdfinfo: %s", info)
+	}
+	if !strings.Contains(txt, "page 1 of "+pages[1]) || !strings.Contains(txt, "page "+pages[1]+" of "+pages[1]) {
+		t.Errorf("page numbers 'page N of %s' not found", pages[1])
+	}
+	list, err := exec.Command("pdfimages", "-list", pdf).Output()
+	if err != nil {
+		t.Fatal(err)
+	}
+	lines := strings.Split(strings.TrimSpace(string(list)), "\n")
+	if n := len(lines) - 2; n != 8 { // two header lines, then one line per image drawn
+		t.Errorf("%d images in the PDF, want 8 (6 linked to CMLs, 2 in the appendix)\n%s", n, list)
+	}
+	var res struct {
+		Items []struct {
+			CML            string   `json:"cml"`
+			RemainingLifeY *float64 `json:"remaining_life_y"`
+		} `json:"items"`
+	}
+	b, _ := os.ReadFile(filepath.Join(out, "results.json"))
+	if err := json.Unmarshal(b, &res); err != nil || len(res.Items) != 21 || res.Items[0].CML != "A-03" {
+		t.Errorf("results.json: %v, %d items", err, len(res.Items))
+	}
+	// Outline: one bookmark per section (pdfinfo -dests is not an outline reader; count /Title entries).
+	raw, _ := os.ReadFile(pdf)
+	if n := bytes.Count(raw, []byte("/Title ")); n < 8 {
+		t.Errorf("%d outline titles, want a bookmark per section", n)
+	}
+}

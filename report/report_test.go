@@ -1,0 +1,166 @@
+package report
+
+import (
+	"bytes"
+	"encoding/csv"
+	"flag"
+	"image"
+	"image/color"
+	"image/jpeg"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+	"time"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+var update = flag.Bool("update", false, "rewrite golden files")
+
+func demo(t *testing.T) (*survey.Survey, []*survey.Assessed) {
+	t.Helper()
+	s, problems := survey.Load(filepath.Join("..", "testdata", "demo"))
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	return s, survey.Assess(s, wallloss.DefaultPolicy)
+}
+
+func testOptions() Options {
+	return Options{
+		Policy:  wallloss.DefaultPolicy,
+		Photos:  PhotoSettings{LongSide: 1600, Quality: 80},
+		Created: time.Date(2026, 11, 20, 9, 0, 0, 0, time.UTC),
+		Version: "test",
+	}
+}
+
+// results.json of the demo against the reviewed golden copy
+// (go test ./report -run Golden -update rewrites it).
+func TestGoldenResultsJSON(t *testing.T) {
+	s, items := demo(t)
+	files, _, err := Render(s, items, testOptions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	var got []byte
+	for _, f := range files {
+		if f.Name == JSONFile {
+			got = f.Data
+		}
+	}
+	got = bytes.ReplaceAll(got, []byte(filepath.Join("..", "testdata")), []byte("testdata"))
+	golden := filepath.Join("testdata", "demo-results.golden.json")
+	if *update {
+		if err := os.WriteFile(golden, got, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	want, err := os.ReadFile(golden)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(got, want) {
+		t.Errorf("results.json differs from %s (run with -update after checking the change)", golden)
+	}
+}
+
+func TestCSVHasOneRowPerCML(t *testing.T) {
+	s, items := demo(t)
+	res := BuildResults(s, items, nil)
+	b, err := CSV(res, s.Units)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rows, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rows) != 1+len(items) {
+		t.Fatalf("%d rows, want header + %d", len(rows), len(items))
+	}
+	if rows[0][8] != "thickness_mm" || rows[1][3] != "A-03" || rows[1][8] != "3.620" {
+		t.Errorf("header %v / first row %v", rows[0], rows[1])
+	}
+}
+
+func TestCSVInInches(t *testing.T) {
+	res := Results{Items: []Item{{Rank: 1, CML: "X", ThicknessMM: ptr(9.525), RateMMPerY: ptr(0.254)}}}
+	b, _ := CSV(res, survey.Inch)
+	rows, _ := csv.NewReader(bytes.NewReader(b)).ReadAll()
+	// 9.525 mm = 0.375 in; 0.254 mm/y = 0.010 in/y = 10 mpy (1 mil = 0.001 in).
+	if rows[0][8] != "thickness_in" || rows[1][8] != "0.3750" || rows[1][13] != "0.010000" {
+		t.Errorf("inch CSV: %v / %v", rows[0], rows[1])
+	}
+}
+
+func ptr(v float64) *float64 { return &v }
+
+// EXIF orientation (CIPA DC-008, Exif 2.3, tag 0x0112): the value says where
+// the stored picture's first row and column belong. A 3×2 picture with a marked
+// top-left pixel must end with that pixel where the table puts it.
+func TestOrient(t *testing.T) {
+	src := image.NewRGBA(image.Rect(0, 0, 3, 2))
+	mark := color.RGBA{255, 0, 0, 255}
+	src.SetRGBA(0, 0, mark)
+	for _, c := range []struct {
+		o          int
+		w, h, x, y int // output size and where the stored top-left pixel lands
+	}{
+		{1, 3, 2, 0, 0}, {2, 3, 2, 2, 0}, {3, 3, 2, 2, 1}, {4, 3, 2, 0, 1},
+		{5, 2, 3, 0, 0}, {6, 2, 3, 1, 0}, {7, 2, 3, 1, 2}, {8, 2, 3, 0, 2},
+	} {
+		out := orient(src, c.o)
+		if b := out.Bounds(); b.Dx() != c.w || b.Dy() != c.h {
+			t.Errorf("orientation %d: size %v, want %d×%d", c.o, b, c.w, c.h)
+			continue
+		}
+		if out.RGBAAt(c.x, c.y) != mark {
+			t.Errorf("orientation %d: marked pixel not at (%d,%d)", c.o, c.x, c.y)
+		}
+	}
+}
+
+func TestPreparePhotoReduces(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "big.jpg")
+	var b bytes.Buffer
+	jpeg.Encode(&b, image.NewGray(image.Rect(0, 0, 2400, 1200)), nil)
+	os.WriteFile(path, b.Bytes(), 0o644)
+	p, err := preparePhoto(path, 6, PhotoSettings{LongSide: 1600, Quality: 80})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if p.Width != 800 || p.Height != 1600 {
+		t.Errorf("prepared %d×%d, want 800×1600 (reduced, then turned upright)", p.Width, p.Height)
+	}
+	if _, err := preparePhoto(filepath.Join(dir, "none.jpg"), 1, PhotoSettings{LongSide: 1600, Quality: 80}); err == nil {
+		t.Error("missing file: no error")
+	}
+}
+
+// A failed write leaves the earlier report as it was.
+func TestWriteFilesAtomic(t *testing.T) {
+	dir := t.TempDir()
+	if err := WriteFiles(dir, []File{{"a.txt", []byte("old")}}); err != nil {
+		t.Fatal(err)
+	}
+	// A file name that cannot be created (a folder of that name exists) fails the second output.
+	os.Mkdir(filepath.Join(dir, "b.txt"), 0o755)
+	err := WriteFiles(dir, []File{{"a.txt", []byte("new")}, {"b.txt/x", []byte("y")}})
+	if err == nil {
+		t.Fatal("no error")
+	}
+	got, _ := os.ReadFile(filepath.Join(dir, "a.txt"))
+	if string(got) != "old" {
+		t.Errorf("a.txt = %q after a failed run, want the earlier %q", got, "old")
+	}
+	entries, _ := os.ReadDir(dir)
+	for _, e := range entries {
+		if strings.HasSuffix(e.Name(), ".tmp") {
+			t.Errorf("temporary file %s left behind", e.Name())
+		}
+	}
+}

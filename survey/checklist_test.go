@@ -1,0 +1,184 @@
+package survey
+
+import (
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// Each bad-input fixture holds one problem; the error must name its line.
+func TestBadInputPointsAtLine(t *testing.T) {
+	for _, c := range []struct {
+		dir, want string
+	}{
+		{"no-front-matter", "survey.md:1: no front matter"},
+		{"unknown-units", `survey.md:6: unknown units "cm"`},
+		{"non-numeric-reading", `survey.md:19: reading "12,5" is not a number`},
+		{"duplicate-cml", "survey.md:20: CML C1 is listed twice (first at line 19)"},
+		{"future-date-column", "survey.md:17: visit column 2025-07-01 is later than this visit's date 2025-06-10"},
+		{"required-above-nominal", "survey.md:14: required 11.00 mm is above nominal 10.00 mm"},
+		{"missing-photo", `survey.md:19: photo "gone.jpg" of CML C1 is not in`},
+		{"photo-outside-folder", `survey.md:19: photo "../secret.jpg" of CML C1 is outside the survey's photos folder`},
+	} {
+		t.Run(c.dir, func(t *testing.T) {
+			_, problems := Load(filepath.Join("..", "testdata", "bad", c.dir))
+			if !problems.HasErrors() {
+				t.Fatalf("no error; problems: %v", problems)
+			}
+			var errs []string
+			for _, p := range problems {
+				if p.Severity == Error {
+					errs = append(errs, p.String())
+				}
+			}
+			if len(errs) != 1 || !strings.Contains(errs[0], c.want) {
+				t.Errorf("errors %q, want exactly one containing %q", errs, c.want)
+			}
+		})
+	}
+}
+
+// A checklist with many problems reports all of them, sorted by line.
+func TestBrokenListsEveryProblem(t *testing.T) {
+	_, problems := Load(filepath.Join("..", "testdata", "broken"))
+	var got []string
+	for _, p := range problems {
+		_, after, _ := strings.Cut(p.String(), "survey.md:")
+		got = append(got, after)
+	}
+	want := []string{
+		`14: required 11.00 mm is above nominal 10.00 mm in "Course 1"`,
+		`19: reading "9,6" is not a number`,
+		`19: photo "gone.jpg" of CML C1 is not in`,
+		`20: CML C1 is listed twice (first at line 19)`,
+		`22: warning: "Course 2" has no required thickness`,
+		`25: consequence: "severe" is not low, medium, high or very high`,
+		`29: reading "abc" is not a number`,
+	}
+	if len(got) != len(want) {
+		t.Fatalf("got %d problems, want %d:\n%s", len(got), len(want), strings.Join(got, "\n"))
+	}
+	for i := range want {
+		if !strings.HasPrefix(got[i], want[i]) {
+			t.Errorf("problem %d = %q, want prefix %q", i, got[i], want[i])
+		}
+	}
+}
+
+func TestFrontMatterProblems(t *testing.T) {
+	for _, c := range []struct{ name, src, want string }{
+		{"yaml error line counts from the file's first line",
+			"---\ntitle: x\ndate: 2025-01-01\nunits: [mm\n---\n", "survey.md:4: front matter"},
+		{"missing date", "---\ntitle: x\nunits: mm\n---\n", "survey.md:1: front matter has no date"},
+		{"bad date", "---\ntitle: x\ndate: 18/11/2026\nunits: mm\n---\n", `survey.md:3: date "18/11/2026" is not an ISO 8601 date`},
+		{"missing units", "---\ntitle: x\ndate: 2025-01-01\n---\n", "survey.md:1: front matter has no units"},
+		{"table outside a component", "---\ntitle: x\ndate: 2025-01-01\nunits: mm\n---\n\n| CML | 2024-01-01 |\n|---|---|\n| A | 1 |\n",
+			"survey.md:7: a reading table must come under a ## component heading"},
+		{"first column not CML", "---\ntitle: x\ndate: 2025-01-01\nunits: mm\n---\n## C\n\n| id | 2024-01-01 |\n|---|---|\n| A | 1 |\n",
+			`survey.md:8: the first column of a reading table must be CML, not "id"`},
+		{"bad gps", "---\ntitle: x\ndate: 2025-01-01\nunits: mm\n---\n## C\n\n| CML | gps | 2024-01-01 |\n|---|---|---|\n| A | 95.1, 3 | 1 |\n",
+			`survey.md:10: gps "95.1, 3" is not`},
+	} {
+		_, problems := ParseChecklist("survey.md", []byte(c.src))
+		found := false
+		for _, p := range problems {
+			found = found || strings.HasPrefix(p.String(), c.want)
+		}
+		if !found {
+			t.Errorf("%s: problems %v lack %q", c.name, problems, c.want)
+		}
+	}
+}
+
+func TestParseDemo(t *testing.T) {
+	s, problems := Load(filepath.Join("..", "testdata", "demo"))
+	if problems.HasErrors() {
+		t.Fatalf("demo has errors: %v", problems)
+	}
+	if s.Title == "" || s.Units != MM || s.Date.Format("2006-01-02") != "2026-11-18" {
+		t.Errorf("front matter: %q %q %v", s.Title, s.Units, s.Date)
+	}
+	if len(s.Assets) != 3 || len(s.AllCMLs()) != 21 {
+		t.Fatalf("%d assets, %d CMLs; want 3 and 21", len(s.Assets), len(s.AllCMLs()))
+	}
+	byID := map[string]Located{}
+	for _, l := range s.AllCMLs() {
+		byID[l.CML.ID] = l
+	}
+	t102 := byID["T1-02"].CML
+	last := t102.Visits[len(t102.Visits)-1]
+	if len(last.ReadingsMM) != 3 || last.Governing() != 10.96 {
+		t.Errorf("T1-02 latest visit %v, want three readings governed by 10.96", last.ReadingsMM)
+	}
+	a01 := byID["A-01"]
+	if d := a01.CML.Visits[0].Date; !d.MonthOnly || d.Time.Format("2006-01-02") != "2012-04-15" {
+		t.Errorf("A-01 first visit %v, want month 2012-04 as its 15th", d)
+	}
+	// 0.322 in × 25.4 mm/in (exact, international inch) = 8.1788 mm.
+	if n := *a01.Component.Design.NominalMM; math.Abs(n-8.1788) > 1e-9 {
+		t.Errorf("nominal 0.322 in = %v mm, want 8.1788", n)
+	}
+	if a04 := byID["A-04"].CML; len(a04.Visits) != 3 {
+		t.Errorf("A-04 has %d visits; the '-' cell is not a visit", len(a04.Visits))
+	}
+	var open int
+	for _, a := range s.Assets {
+		for _, c := range a.Components {
+			for _, it := range c.Scope {
+				if !it.Done {
+					open++
+				}
+			}
+		}
+	}
+	if open != 4 {
+		t.Errorf("%d scope items not done, want 4", open)
+	}
+	if got := byID["T1-02"].CML.PhotoRefs; len(got) != 1 || got[0] != "tank-t101/t101-c1-north.jpg" {
+		t.Errorf("T1-02 photos %v", got)
+	}
+}
+
+func TestParseThicknesses(t *testing.T) {
+	for _, c := range []struct {
+		in   string
+		def  Unit
+		want []float64
+	}{
+		{"9.5", MM, []float64{9.5}},
+		{"0.375 in", MM, []float64{9.525}}, // 0.375 × 25.4, exact inch
+		{"0.375", Inch, []float64{9.525}},
+		{"9.1mm 9.0mm", Inch, []float64{9.1, 9.0}},
+		{"11.02 10.96 11.10", MM, []float64{11.02, 10.96, 11.10}},
+		{"0.250 in 6.1 mm", MM, []float64{6.35, 6.1}},
+	} {
+		got, err := ParseThicknesses(c.in, c.def)
+		if err != nil || len(got) != len(c.want) {
+			t.Errorf("%q: %v %v", c.in, got, err)
+			continue
+		}
+		for i := range got {
+			if math.Abs(got[i]-c.want[i]) > 1e-12 {
+				t.Errorf("%q: %v, want %v", c.in, got, c.want)
+			}
+		}
+	}
+	for _, bad := range []string{"12,5", "abc", "0", "-1.2", "9.5 cm"} {
+		if _, err := ParseThicknesses(bad, MM); err == nil {
+			t.Errorf("%q: no error", bad)
+		}
+	}
+}
+
+// The checklist is never written to: Load leaves every input byte as it was.
+func TestLoadDoesNotModifyInput(t *testing.T) {
+	path := filepath.Join("..", "testdata", "demo", "survey.md")
+	before, _ := os.ReadFile(path)
+	Load(filepath.Join("..", "testdata", "demo"))
+	after, _ := os.ReadFile(path)
+	if string(before) != string(after) {
+		t.Error("survey.md changed")
+	}
+}
