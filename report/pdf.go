@@ -46,6 +46,7 @@ type doc struct {
 	u         units
 	landscape bool
 	photos    map[string]*photoEntry
+	byCML     map[*survey.CML]*survey.Assessed
 	warnings  survey.ProblemList
 }
 
@@ -60,7 +61,10 @@ type photoEntry struct {
 // back as warnings.
 func PDF(s *survey.Survey, items []*survey.Assessed, opts Options) ([]byte, survey.ProblemList, error) {
 	pdf := fpdf.New("P", "mm", "A4", "")
-	d := &doc{pdf: pdf, s: s, items: items, opts: opts, u: units{s.Units}, photos: map[string]*photoEntry{}}
+	d := &doc{pdf: pdf, s: s, items: items, opts: opts, u: units{s.Units}, photos: map[string]*photoEntry{}, byCML: map[*survey.CML]*survey.Assessed{}}
+	for _, it := range items {
+		d.byCML[it.CML] = it
+	}
 	pdf.SetMargins(margin, margin, margin)
 	pdf.SetAutoPageBreak(true, bottomGap)
 	pdf.SetCellMargin(0) // tables pad their own cells; SplitText then measures the same width

@@ -170,12 +170,7 @@ func (d *doc) results(c *survey.Component) {
 }
 
 func (d *doc) assessed(m *survey.CML) *survey.Assessed {
-	for _, it := range d.items {
-		if it.CML == m {
-			return it
-		}
-	}
-	return nil
+	return d.byCML[m]
 }
 
 // stripInline removes Markdown emphasis markers for table cells.

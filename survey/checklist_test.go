@@ -182,3 +182,28 @@ func TestLoadDoesNotModifyInput(t *testing.T) {
 		t.Error("survey.md changed")
 	}
 }
+
+// The complete example in README.md must stay a valid checklist.
+func TestReadmeExampleParses(t *testing.T) {
+	readme, err := os.ReadFile(filepath.Join("..", "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, rest, ok := strings.Cut(string(readme), "````markdown\n")
+	example, _, ok2 := strings.Cut(rest, "````")
+	if !ok || !ok2 {
+		t.Fatal("README has no ````markdown example")
+	}
+	s, problems := ParseChecklist("README.md", []byte(example))
+	if problems.HasErrors() || len(problems) != 0 {
+		t.Fatalf("README example: %v", problems)
+	}
+	cmls := s.AllCMLs()
+	if len(s.Assets) != 1 || len(cmls) != 3 || len(cmls[1].CML.Visits) != 2 {
+		t.Errorf("README example: %d assets, %d CMLs", len(s.Assets), len(cmls))
+	}
+	// 0.337 in nominal of the nozzle = 8.5598 mm.
+	if n := *cmls[2].Component.Design.NominalMM; math.Abs(n-8.5598) > 1e-9 {
+		t.Errorf("nozzle nominal %v mm", n)
+	}
+}

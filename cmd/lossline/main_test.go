@@ -146,7 +146,7 @@ func TestEndToEndDemo(t *testing.T) {
 		"Summary", "Scope limitations", "Ranked list of CMLs", "Tank T-101", "Shell course 1", "Readings (mm)", "Results",
 		"Scope checklist", "Appendix A — Photos not linked to a CML", "Appendix B — Methods", "Appendix C — Warnings",
 		"AT OR BELOW REQUIRED", "below-required", "thickness-increase", "nominal-based",
-		"10.96 (11.02 10.96 11.10)", // multi-reading cell: governing first
+		"10.96 (11.02 10.96 11.10)",        // multi-reading cell: governing first
 		"API 570 §7.1.1", "µA/cm²", "270°", // Unicode through the embedded font
 		"Magnetic-particle test at nozzle N3",
 	} {
