@@ -42,8 +42,18 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	}
 	if g := survey.Governing(d.items, c); g != nil {
 		r := g.Result
-		pairs = append(pairs, [2]string{"Governed by", fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",
-			g.CML.ID, status(r), years(r.RemainingLifeY), day(r.NextInspection))})
+		gov := fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",
+			g.CML.ID, status(r), years(r.RemainingLifeY), day(r.NextInspection))
+		var unknown []string
+		for _, m := range c.CMLs {
+			if it := d.assessed(m); it != nil && it.Result.Class == wallloss.LifeUnknown {
+				unknown = append(unknown, m.ID)
+			}
+		}
+		if len(unknown) > 0 {
+			gov += ". No remaining life can be computed for " + strings.Join(unknown, ", ") + " (see flags)."
+		}
+		pairs = append(pairs, [2]string{"Governed by", gov})
 	}
 	d.keyValues(pairs, 40)
 	if len(c.CMLs) > 0 {

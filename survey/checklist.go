@@ -77,7 +77,7 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 		line, msg := 1, err.Error()
 		if sub := yamlLine.FindStringSubmatch(msg); sub != nil {
 			n, _ := strconv.Atoi(sub[1])
-			line = n + 1 // yaml counts from the line after the opening ---
+			line = min(n+1, len(r.lines)) // yaml counts from the line after the opening ---
 			msg = strings.Replace(msg, sub[0], "", 1)
 		}
 		r.problems.Errorf(r.file, line, "front matter: %s", strings.TrimPrefix(msg, "yaml: "))

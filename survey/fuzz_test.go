@@ -1,0 +1,34 @@
+package survey
+
+import (
+	"os"
+	"path/filepath"
+	"testing"
+
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+// FuzzParseChecklist: any input yields a survey and problems, never a panic,
+// and every problem points inside the file.
+func FuzzParseChecklist(f *testing.F) {
+	seeds, _ := filepath.Glob(filepath.Join("..", "testdata", "*", "survey.md"))
+	more, _ := filepath.Glob(filepath.Join("..", "testdata", "bad", "*", "survey.md"))
+	for _, p := range append(seeds, more...) {
+		if b, err := os.ReadFile(p); err == nil {
+			f.Add(b)
+		}
+	}
+	f.Fuzz(func(t *testing.T, src []byte) {
+		s, problems := ParseChecklist("survey.md", src)
+		if s == nil {
+			t.Fatal("nil survey")
+		}
+		lines := len(newLineIndex(src))
+		for _, p := range problems {
+			if p.Line < 0 || p.Line > lines {
+				t.Fatalf("problem at line %d of a %d-line file: %v", p.Line, lines, p)
+			}
+		}
+		_ = Assess(s, wallloss.DefaultPolicy)
+	})
+}
