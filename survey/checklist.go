@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"regexp"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -119,7 +120,7 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 	}
 	var unknown []string
 	for k := range m {
-		if !contains(frontMatterKeys, k) {
+		if !slices.Contains(frontMatterKeys, k) {
 			unknown = append(unknown, k)
 		}
 	}
@@ -254,7 +255,7 @@ func (r *checklistReader) listText(block ast.Node) {
 	if r.comp != nil {
 		if m := designItem.FindStringSubmatch(src); m != nil {
 			key := strings.ToLower(m[1])
-			if contains(designKeys, key) {
+			if slices.Contains(designKeys, key) {
 				r.design(key, m[2], line)
 				return
 			}
@@ -311,13 +312,4 @@ func ParseConsequence(s string) (Consequence, bool) {
 		}
 	}
 	return ConsequenceUnknown, false
-}
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
 }

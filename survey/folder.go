@@ -4,6 +4,7 @@ import (
 	"os"
 	"path"
 	"path/filepath"
+	"slices"
 	"strings"
 )
 
@@ -58,7 +59,7 @@ func linkPhotos(s *Survey) ProblemList {
 				continue
 			}
 			m.PhotoRefs[i] = name
-			if !contains(p.CMLs, m.ID) {
+			if !slices.Contains(p.CMLs, m.ID) {
 				p.CMLs = append(p.CMLs, m.ID)
 			}
 		}
