@@ -6,8 +6,6 @@ import (
 	"encoding/json"
 	"strconv"
 	"strings"
-
-	"github.com/lossline/lossline/survey"
 )
 
 // JSON renders results.json, indented, ending in a newline.
@@ -20,13 +18,16 @@ func JSON(r Results) ([]byte, error) {
 }
 
 // CSV renders results.csv: one row per CML in rank order, thicknesses and
-// rates in the survey's display units, named in each header.
-func CSV(r Results, units survey.Unit) ([]byte, error) {
-	u := string(units)
+// rates in the display units, named in each header.
+func CSV(r Results, disp Display) ([]byte, error) {
+	u := units{disp.Thickness, disp.Rate}
+	tu := string(u.u)
+	ru := map[string]string{"mm/y": "mm_per_y", "in/y": "in_per_y", "mpy": "mpy"}[u.rateUnit]
 	header := []string{"rank", "asset", "component", "cml", "location", "latitude", "longitude", "thickness_date",
-		"thickness_" + u, "required_" + u, "nominal_" + u,
-		"rate_long_" + u + "_per_y", "rate_short_" + u + "_per_y", "rate_" + u + "_per_y",
-		"remaining_life_y", "retirement_date", "next_inspection", "next_inspection_basis", "consequence", "flags", "photos"}
+		"thickness_" + tu, "required_" + tu, "nominal_" + tu,
+		"rate_long_" + ru, "rate_short_" + ru, "rate_" + ru, "rate_model",
+		"remaining_life_y", "remaining_life_low_y", "retirement_date", "next_inspection", "next_inspection_basis",
+		"next_external_inspection", "interval_rule", "required_method", "consequence", "flags", "photos"}
 	var b bytes.Buffer
 	w := csv.NewWriter(&b)
 	_ = w.Write(header)
@@ -34,21 +35,22 @@ func CSV(r Results, units survey.Unit) ([]byte, error) {
 		if v == nil {
 			return ""
 		}
-		return strconv.FormatFloat(units.FromMM(*v), 'f', units.Decimals()+1, 64)
+		return strconv.FormatFloat(u.u.FromMM(*v), 'f', u.u.Decimals()+1, 64)
 	}
 	rate := func(v *float64) string {
 		if v == nil {
 			return ""
 		}
-		return strconv.FormatFloat(units.FromMM(*v), 'f', units.Decimals()+3, 64)
+		return u.rate(v)
 	}
 	for _, it := range r.Items {
 		_ = w.Write([]string{
 			strconv.Itoa(it.Rank), it.Asset, it.Component, it.CML, it.Location,
 			num(it.Latitude, 6), num(it.Longitude, 6), str(it.ThicknessDate),
 			thick(it.ThicknessMM), thick(it.RequiredMM), thick(it.NominalMM),
-			rate(it.RateLongMMPerY), rate(it.RateShortMMPerY), rate(it.RateMMPerY),
-			num(it.RemainingLifeY, 2), str(it.RetirementDate), str(it.NextInspection), str(it.NextInspectionWhy),
+			rate(it.RateLongMMPerY), rate(it.RateShortMMPerY), rate(it.RateMMPerY), it.RateModel,
+			num(it.RemainingLifeY, 2), num(it.RemainingLifeLowY, 2), str(it.RetirementDate), str(it.NextInspection), str(it.NextInspectionWhy),
+			str(it.NextExternal), it.IntervalRule, it.RequiredMethod,
 			str(it.Consequence), strings.Join(it.Flags, " "), strings.Join(it.Photos, " "),
 		})
 	}

@@ -13,8 +13,31 @@ import (
 // none is printed where a value cannot be computed.
 const none = "—"
 
-// units formats values for the page in the survey's display units.
-type units struct{ u survey.Unit }
+// Display says which units the report shows; results.json is always in mm.
+type Display struct {
+	Thickness survey.Unit // mm or in; "" for the survey's units
+	Rate      string      // mm/y, mpy or in/y; "" for mm/y with mm, mpy with in
+}
+
+// RateUnits are the rate units the report can show.
+var RateUnits = []string{"mm/y", "mpy", "in/y"}
+
+// resolve fills the defaults from the survey's units.
+func (d Display) resolve(survey survey.Unit) Display {
+	if d.Thickness == "" {
+		d.Thickness = survey
+	}
+	if d.Rate == "" {
+		d.Rate = map[bool]string{true: "mpy", false: "mm/y"}[d.Thickness == "in"]
+	}
+	return d
+}
+
+// units formats values for the page in the display units.
+type units struct {
+	u        survey.Unit
+	rateUnit string
+}
 
 func (f units) thick(mm *float64) string {
 	if mm == nil {
@@ -23,15 +46,19 @@ func (f units) thick(mm *float64) string {
 	return f.u.Format(*mm)
 }
 
+// rate converts mm/y exactly: 1 in = 25.4 mm, 1 mil = 0.001 in.
 func (f units) rate(mmPerY *float64) string {
 	if mmPerY == nil {
 		return none
 	}
-	return strconv.FormatFloat(f.u.FromMM(*mmPerY), 'f', f.u.Decimals()+1, 64)
+	switch f.rateUnit {
+	case "mpy":
+		return strconv.FormatFloat(*mmPerY/0.0254, 'f', 2, 64)
+	case "in/y":
+		return strconv.FormatFloat(*mmPerY/25.4, 'f', 4, 64)
+	}
+	return strconv.FormatFloat(*mmPerY, 'f', 3, 64)
 }
-
-// rateUnit is "mm/y" or "in/y".
-func (f units) rateUnit() string { return string(f.u) + "/y" }
 
 func years(y *float64) string {
 	if y == nil {
@@ -99,6 +126,10 @@ var flagMeanings = []struct{ Code, Meaning string }{
 	{wallloss.FlagNoRequired, "the component has no required thickness, so no remaining life."},
 	{wallloss.FlagNoReadings, "the CML row holds no readings."},
 	{wallloss.FlagNotMeasuredLatest, "the CML was not measured at the survey's latest visit; its results date from an earlier one."},
+	{wallloss.FlagNoMeasurableLoss, "the loss over the interval is within the gauge tolerance: no measurable loss, no retirement date."},
+	{wallloss.FlagAboveNominal, "a reading is more than the gauge tolerance above nominal: suspect (coating, calibration, location)."},
+	{wallloss.FlagEstimate, "the rate is a single-visit estimate (nominal-based, assumed or ISO 9224), not a measured rate."},
+	{wallloss.FlagFitNeedsThree, "the fit model needs three or more visits; the larger of long- and short-term rate was used."},
 }
 
 func flagsText(flags []string) string {

@@ -20,6 +20,7 @@ import (
 // Options are the settings the report follows.
 type Options struct {
 	Policy    wallloss.Policy
+	Display   Display
 	Photos    PhotoSettings
 	Templates templates.Set
 	Created   time.Time // printed as the report date and written as the PDF's creation date
@@ -61,7 +62,7 @@ type photoEntry struct {
 // back as warnings.
 func PDF(s *survey.Survey, items []*survey.Assessed, opts Options) ([]byte, survey.ProblemList, error) {
 	pdf := fpdf.New("P", "mm", "A4", "")
-	d := &doc{pdf: pdf, s: s, items: items, opts: opts, u: units{s.Units}, photos: map[string]*photoEntry{}, byCML: map[*survey.CML]*survey.Assessed{}}
+	d := &doc{pdf: pdf, s: s, items: items, opts: opts, u: units{opts.Display.resolve(s.Units).Thickness, opts.Display.resolve(s.Units).Rate}, photos: map[string]*photoEntry{}, byCML: map[*survey.CML]*survey.Assessed{}}
 	for _, it := range items {
 		d.byCML[it.CML] = it
 	}

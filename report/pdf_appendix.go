@@ -8,7 +8,7 @@ import (
 // methods writes the methods appendix from its template and the settings used.
 func (d *doc) methods() error {
 	text, err := d.opts.Templates.Execute("report/methods.md", map[string]any{
-		"Units":            string(d.s.Units),
+		"Units":            string(d.u.u),
 		"IntervalCapYears": d.opts.Policy.IntervalCapYears,
 		"PhotoLongSide":    d.opts.Photos.LongSide,
 		"Flags":            flagMeanings,
@@ -28,7 +28,7 @@ func (d *doc) methods() error {
 		{"Interval cap", fmt.Sprintf("%g years", d.opts.Policy.IntervalCapYears)},
 		{"Governing rate", "larger of long-term and short-term"},
 		{"Year length", "365.25 days"},
-		{"Display units", fmt.Sprintf("%s, rates in %s", d.s.Units, d.u.rateUnit())},
+		{"Display units", fmt.Sprintf("%s, rates in %s", d.u.u, d.u.rateUnit)},
 		{"Photos", fmt.Sprintf("long side at most %d px, JPEG quality %d", d.opts.Photos.LongSide, d.opts.Photos.Quality)},
 		{"Report texts", tmpl},
 		{"Program", "lossline " + d.opts.Version},

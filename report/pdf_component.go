@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/required"
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
@@ -32,13 +33,36 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	if cons == "" {
 		cons = "not given"
 	}
-	u := string(d.s.Units)
+	u := string(d.u.u)
+	req := d.u.thick(des.RequiredMM) + " " + u + " (as written in the checklist)"
+	if des.RequiredCalc != nil {
+		req = d.u.thick(des.RequiredMM) + " " + u + " by " + des.RequiredCalc.Method + " (derivation below)"
+	} else if des.RequiredMM == nil {
+		req = "not given: no remaining life"
+	}
+	model := d.opts.Policy.RateModel
+	if des.RateModel != "" {
+		model = des.RateModel + " (set for this component)"
+	}
+	rule := d.opts.Policy.Rule
+	if des.Rule != nil {
+		rule = *des.Rule
+	}
 	pairs := [][2]string{
 		{"Nominal thickness", d.u.thick(des.NominalMM) + " " + u},
-		{"Required thickness", d.u.thick(des.RequiredMM) + " " + u + " (as written in the checklist)"},
+		{"Required thickness", req},
 		{"Installed", installed},
 		{"Consequence", cons},
 		{"CMLs", strconv.Itoa(len(c.CMLs))},
+		{"Rate model", rateModelText(model)},
+		{"Interval rule", rule.Describe(d.opts.Policy.IntervalCapYears)},
+	}
+	if des.AssumedRateMMPerY != nil {
+		pairs = append(pairs, [2]string{"Assumed rate", d.u.rate(des.AssumedRateMMPerY) + " " + d.u.rateUnit + " (single-visit estimate written by the engineer)"})
+	}
+	if des.Corrosivity != "" {
+		pairs = append(pairs, [2]string{"Corrosivity", fmt.Sprintf("%s (ISO 9223): first-year rate of carbon steel up to %g µm/a, ISO 9224 exponent b = %g (single-visit estimate)",
+			des.Corrosivity, des.Corrosivity.FirstYearRateUM(), wallloss.ISO9224SteelExponentB2)})
 	}
 	if g := survey.Governing(d.items, c); g != nil {
 		r := g.Result
@@ -56,6 +80,9 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		pairs = append(pairs, [2]string{"Governed by", gov})
 	}
 	d.keyValues(pairs, 40)
+	if des.RequiredCalc != nil {
+		d.derivation(des.RequiredCalc)
+	}
 	if len(c.CMLs) > 0 {
 		d.readings(c)
 		d.results(c)
@@ -89,12 +116,46 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	}
 }
 
+// derivation shows how a required thickness was computed: inputs, steps, source.
+func (d *doc) derivation(c *required.Calculation) {
+	d.heading(2, "Required thickness: derivation")
+	rows := make([][]string, len(c.Inputs))
+	for i, in := range c.Inputs {
+		rows[i] = []string{in.Name, in.Written, in.Used}
+	}
+	d.table([]column{{"Input", 60, "L"}, {"As written", 60, "L"}, {"Used as", 60, "L"}}, rows, nil, smallSize)
+	var b strings.Builder
+	for _, st := range c.Steps {
+		b.WriteString("- " + mdEscape(st) + "\n")
+	}
+	b.WriteString(fmt.Sprintf("\nResult: **%s %s** (%s).\n", d.u.thick(&c.RequiredMM), d.u.u, mdEscape(c.Source)))
+	d.markdown(b.String())
+}
+
+// mdEscape keeps formula text literal when rendered as Markdown.
+func mdEscape(s string) string {
+	return strings.NewReplacer("*", "\\*", "_", "\\_", "`", "\\`").Replace(s)
+}
+
+// rateModelText explains a rate model in words.
+func rateModelText(m string) string {
+	switch strings.Fields(m + " ")[0] {
+	case wallloss.ModelLong:
+		return m + ": long-term rate from the earliest reading (API 570 §7.1.1)"
+	case wallloss.ModelShort:
+		return m + ": short-term rate from the previous reading (API 570 §7.1.1)"
+	case wallloss.ModelFit:
+		return m + ": least-squares line through all visits (three or more), remaining life also at the rate's one-sided 95 % upper bound (Student t)"
+	}
+	return m + ": the larger of long- and short-term rate (API 570 §7.1.1; the conservative choice)"
+}
+
 // visitsPerTable is how many visit columns fit on a portrait page.
 const visitsPerTable = 6
 
 // readings writes every visit's readings, in tables of at most six visits.
 func (d *doc) readings(c *survey.Component) {
-	d.heading(2, fmt.Sprintf("Readings (%s)", d.s.Units))
+	d.heading(2, fmt.Sprintf("Readings (%s)", d.u.u))
 	dates := c.VisitDates
 	for start := 0; start < len(dates) || start == 0; start += visitsPerTable {
 		chunk := dates[start:min(start+visitsPerTable, len(dates))]
@@ -141,7 +202,7 @@ func (d *doc) visitCell(m *survey.CML, dt survey.VisitDate) string {
 // results writes each CML's rates, remaining life and dates.
 func (d *doc) results(c *survey.Component) {
 	d.heading(2, "Results")
-	u, ru := string(d.s.Units), d.u.rateUnit()
+	u, ru := string(d.u.u), d.u.rateUnit
 	cols := []column{
 		{"CML", 14, "L"}, {"Thick- ness (" + u + ")", 16, "R"}, {"Long- term rate (" + ru + ")", 17, "R"},
 		{"Short- term rate (" + ru + ")", 17, "R"}, {"Governing rate (" + ru + ")", 18, "R"}, {"Remaining life (y)", 18, "R"},
@@ -160,20 +221,29 @@ func (d *doc) results(c *survey.Component) {
 			thick += " (" + day(r.CurrentDate) + ")"
 		}
 		next := day(r.NextInspection)
-		switch r.NextBasis {
-		case wallloss.BasisHalfLife:
-			next += " (half life)"
-		case wallloss.BasisCap:
-			next += fmt.Sprintf(" (%g-year cap)", d.opts.Policy.IntervalCapYears)
-		case wallloss.BasisNow:
-			next += " (now)"
+		if r.NextBasis != "" {
+			next += " (" + r.NextBasis + ")"
+		}
+		if r.NextExternal != nil {
+			next += "; external " + day(r.NextExternal)
+		}
+		rate := d.u.rate(r.RateMMPerY)
+		if r.RateModel != "" && r.RateModel != wallloss.ModelMax {
+			rate += " " + r.RateModel
+		}
+		if r.RateUpperMMPerY != nil {
+			rate += ", upper " + d.u.rate(r.RateUpperMMPerY)
+		}
+		life := years(r.RemainingLifeY)
+		if r.RemainingLifeLowY != nil {
+			life += " (low " + years(r.RemainingLifeLowY) + ")"
 		}
 		st := status(r)
 		if len(r.Flags) > 0 {
 			st += "; " + flagsText(r.Flags)
 		}
 		rows = append(rows, []string{m.ID, thick, d.u.rate(r.RateLongMMPerY), d.u.rate(r.RateShortMMPerY),
-			d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.Retirement), next, st})
+			rate, life, day(r.Retirement), next, st})
 		res = append(res, r)
 	}
 	d.table(cols, rows, func(i int) rowStyle { return rowStyle{bold: urgent(res[i]), shade: urgent(res[i])} }, smallSize)

@@ -34,7 +34,7 @@ func (d *doc) cover() {
 		{"Survey date", d.s.Date.Format(dateLayout)},
 		{"Inspector", d.s.Inspector},
 		{"Assets", strings.Join(assets, "\n")},
-		{"Thickness units", fmt.Sprintf("%s (rates in %s)", d.s.Units, d.u.rateUnit())},
+		{"Thickness units", fmt.Sprintf("%s (rates in %s)", d.u.u, d.u.rateUnit)},
 		{"Report produced", d.opts.Created.Format(dateLayout) + " by lossline " + d.opts.Version},
 	} {
 		d.font("B", bodySize)
@@ -135,12 +135,12 @@ func (d *doc) summary() {
 	}
 	d.text(fmt.Sprintf("%d CMLs on %d components of %d assets. Each component is governed by its most urgent CML; "+
 		"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
-		len(d.items), nComp, len(d.s.Assets), d.s.Units, d.u.rateUnit()))
+		len(d.items), nComp, len(d.s.Assets), d.u.u, d.u.rateUnit))
 	d.pdf.Ln(2)
-	u := string(d.s.Units)
+	u := string(d.u.u)
 	cols := []column{
 		{"Component", 50, "L"}, {"CMLs", 11, "R"}, {"Governing CML", 18, "L"},
-		{"Thickness / required (" + u + ")", 26, "R"}, {"Rate (" + d.u.rateUnit() + ")", 15, "R"}, {"Remaining life (y)", 18, "R"},
+		{"Thickness / required (" + u + ")", 26, "R"}, {"Rate (" + d.u.rateUnit + ")", 15, "R"}, {"Remaining life (y)", 18, "R"},
 		{"Next inspection", 21, "L"}, {"Status", 21, "L"},
 	}
 	for _, a := range d.s.Assets {
@@ -194,12 +194,12 @@ func (d *doc) ranked() {
 	d.heading(0, "Ranked list of CMLs")
 	d.text(fmt.Sprintf("Most urgent first: at or below required, then shortest remaining life; ties by consequence, then CML id. "+
 		"Thicknesses in %s, rates in %s (the governing rate, the larger of long- and short-term). Rows at or below "+
-		"required or under 5 years of remaining life are in bold and shaded; the status column says why.", d.s.Units, d.u.rateUnit()))
+		"required or under 5 years of remaining life are in bold and shaded; the status column says why.", d.u.u, d.u.rateUnit))
 	d.pdf.Ln(2)
-	u := string(d.s.Units)
+	u := string(d.u.u)
 	cols := []column{
 		{"Rank", 11, "R"}, {"Asset / component", 50, "L"}, {"CML", 15, "L"},
-		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit() + ")", 16, "R"},
+		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit + ")", 16, "R"},
 		{"Remaining life (y)", 19, "R"}, {"Retirement date", 21, "L"}, {"Next inspection", 21, "L"},
 		{"Conse- quence", 17, "L"}, {"Status", 27, "L"}, {"Flags", 34, "L"},
 	}

@@ -22,7 +22,7 @@ func Render(s *survey.Survey, items []*survey.Assessed, opts Options) ([]File, s
 	if err != nil {
 		return nil, nil, err
 	}
-	csv, err := CSV(res, s.Units)
+	csv, err := CSV(res, opts.Display.resolve(s.Units))
 	if err != nil {
 		return nil, nil, err
 	}

@@ -70,7 +70,7 @@ func TestGoldenResultsJSON(t *testing.T) {
 func TestCSVHasOneRowPerCML(t *testing.T) {
 	s, items := demo(t)
 	res := BuildResults(s, items, nil)
-	b, err := CSV(res, s.Units)
+	b, err := CSV(res, Display{}.resolve(s.Units))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -88,11 +88,16 @@ func TestCSVHasOneRowPerCML(t *testing.T) {
 
 func TestCSVInInches(t *testing.T) {
 	res := Results{Items: []Item{{Rank: 1, CML: "X", ThicknessMM: ptr(9.525), RateMMPerY: ptr(0.254)}}}
-	b, _ := CSV(res, survey.Inch)
-	rows, _ := csv.NewReader(bytes.NewReader(b)).ReadAll()
-	// 9.525 mm = 0.375 in; 0.254 mm/y = 0.010 in/y = 10 mpy (1 mil = 0.001 in).
-	if rows[0][8] != "thickness_in" || rows[1][8] != "0.3750" || rows[1][13] != "0.010000" {
-		t.Errorf("inch CSV: %v / %v", rows[0], rows[1])
+	// 9.525 mm = 0.375 in; 0.254 mm/y = 0.010 in/y = 10 mpy (1 mil = 0.001 in; exact).
+	for _, c := range []struct{ rate, header, want string }{{"mpy", "rate_mpy", "10.00"}, {"in/y", "rate_in_per_y", "0.0100"}} {
+		b, _ := CSV(res, Display{Thickness: survey.Inch, Rate: c.rate})
+		rows, _ := csv.NewReader(bytes.NewReader(b)).ReadAll()
+		if rows[0][8] != "thickness_in" || rows[1][8] != "0.3750" || rows[0][13] != c.header || rows[1][13] != c.want {
+			t.Errorf("inch CSV: %v / %v", rows[0], rows[1])
+		}
+	}
+	if d := (Display{}).resolve(survey.Inch); d.Rate != "mpy" {
+		t.Errorf("inch surveys show mpy by default, not %s", d.Rate)
 	}
 }
 

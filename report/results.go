@@ -5,6 +5,7 @@ import (
 	"time"
 
 	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
 )
 
 // Results is the content of results.json: the contract other tools read.
@@ -39,10 +40,16 @@ type Item struct {
 	RateLongMMPerY    *float64 `json:"rate_long_mm_per_y"`
 	RateShortMMPerY   *float64 `json:"rate_short_mm_per_y"`
 	RateMMPerY        *float64 `json:"rate_mm_per_y"`
+	RateModel         string   `json:"rate_model"`
 	RemainingLifeY    *float64 `json:"remaining_life_y"`
+	RemainingLifeLowY *float64 `json:"remaining_life_low_y"`
 	RetirementDate    *string  `json:"retirement_date"`
 	NextInspection    *string  `json:"next_inspection"`
 	NextInspectionWhy *string  `json:"next_inspection_basis"`
+	NextExternal      *string  `json:"next_external_inspection"`
+	IntervalRule      string   `json:"interval_rule"`
+	RequiredMethod    string   `json:"required_method"`
+	Estimate          bool     `json:"estimate"`
 	Consequence       *string  `json:"consequence"`
 	Flags             []string `json:"flags"`
 	Photos            []string `json:"photos"`
@@ -68,18 +75,24 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, warnings survey.Pr
 		res, d := it.Result, it.Component.Design
 		item := Item{
 			Rank: it.Rank, Asset: it.Asset.Name, Component: it.Component.Name, CML: it.CML.ID, Location: it.CML.Location,
-			ThicknessDate:   dateOf(res.CurrentDate),
-			ThicknessMM:     round(res.ThicknessMM, 4),
-			RequiredMM:      round(d.RequiredMM, 4),
-			NominalMM:       round(d.NominalMM, 4),
-			RateLongMMPerY:  round(res.RateLongMMPerY, 6),
-			RateShortMMPerY: round(res.RateShortMMPerY, 6),
-			RateMMPerY:      round(res.RateMMPerY, 6),
-			RemainingLifeY:  round(res.RemainingLifeY, 3),
-			RetirementDate:  dateOf(res.Retirement),
-			NextInspection:  dateOf(res.NextInspection),
-			Flags:           append([]string{}, res.Flags...),
-			Photos:          append([]string{}, it.CML.PhotoRefs...),
+			ThicknessDate:     dateOf(res.CurrentDate),
+			ThicknessMM:       round(res.ThicknessMM, 4),
+			RequiredMM:        round(d.RequiredMM, 4),
+			NominalMM:         round(d.NominalMM, 4),
+			RateLongMMPerY:    round(res.RateLongMMPerY, 6),
+			RateShortMMPerY:   round(res.RateShortMMPerY, 6),
+			RateMMPerY:        round(res.RateMMPerY, 6),
+			RateModel:         res.RateModel,
+			RemainingLifeY:    round(res.RemainingLifeY, 3),
+			RemainingLifeLowY: round(res.RemainingLifeLowY, 3),
+			NextExternal:      dateOf(res.NextExternal),
+			IntervalRule:      res.Rule.Code(),
+			RequiredMethod:    requiredMethod(d),
+			Estimate:          res.HasFlag(wallloss.FlagEstimate),
+			RetirementDate:    dateOf(res.Retirement),
+			NextInspection:    dateOf(res.NextInspection),
+			Flags:             append([]string{}, res.Flags...),
+			Photos:            append([]string{}, it.CML.PhotoRefs...),
 		}
 		if res.NextBasis != "" {
 			item.NextInspectionWhy = &res.NextBasis
@@ -99,6 +112,17 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, warnings survey.Pr
 }
 
 const dateLayout = "2006-01-02"
+
+// requiredMethod names where the required thickness came from.
+func requiredMethod(d survey.Design) string {
+	switch {
+	case d.RequiredCalc != nil:
+		return d.RequiredCalc.Method
+	case d.RequiredMM != nil:
+		return "as written"
+	}
+	return ""
+}
 
 func dateOf(t *time.Time) *string {
 	if t == nil {

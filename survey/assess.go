@@ -23,7 +23,10 @@ func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 	var items []*Assessed
 	for _, loc := range s.AllCMLs() {
 		d := loc.Component.Design
-		in := wallloss.Input{NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest}
+		in := wallloss.Input{
+			NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest,
+			RateModel: d.RateModel, Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity,
+		}
 		if d.Installed != nil {
 			in.Installed = &d.Installed.Time
 		}

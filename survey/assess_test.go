@@ -6,6 +6,8 @@ import (
 	"slices"
 	"testing"
 
+	"gonum.org/v1/gonum/stat"
+
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
@@ -27,16 +29,21 @@ func TestAssessDemoByHand(t *testing.T) {
 			t.Errorf("%s %s = %v, want %.9g", id, what, got, want)
 		}
 	}
-	// T1-04: 12.20 (2014-09-10), 11.48 (2019-09-12), 10.41 (2026-11-18); required 9.6.
-	// 4452 and 2624 days.
+	// T1-04: 12.20 (2014-09-10), 11.48 (2019-09-12), 10.41 (2026-11-18); required
+	// 9.1424 mm (API 653, see TestParseDemo). 4452 and 2624 days.
 	lt, st := (12.20-10.41)/(4452/365.25), (11.48-10.41)/(2624/365.25)
+	req := *byID["T1-04"].Component.Design.RequiredMM
 	check("T1-04", "long-term rate", byID["T1-04"].Result.RateLongMMPerY, lt)
 	check("T1-04", "short-term rate", byID["T1-04"].Result.RateShortMMPerY, st)
-	check("T1-04", "remaining life", byID["T1-04"].Result.RemainingLifeY, (10.41-9.6)/st)
-	// month 2012-04 taken as 2012-04-15 (5330 days to 2026-11-18); previous 2022-05-10 (1653 days).
-	lt, st = (8.05-5.71)/(5330/365.25), (6.62-5.71)/(1653/365.25)
+	check("T1-04", "remaining life", byID["T1-04"].Result.RemainingLifeY, (10.41-req)/st)
+	// month 2012-04 taken as 2012-04-15 (5330 days to 2026-11-18); rate model
+	// fit: the least-squares slope, here from gonum as the independent reference.
+	lt = (8.05 - 5.71) / (5330 / 365.25)
 	check("A-01", "long-term rate", byID["A-01"].Result.RateLongMMPerY, lt)
-	check("A-01", "remaining life", byID["A-01"].Result.RemainingLifeY, (5.71-3.8)/st)
+	xs := []float64{0, 1843.0 / 365.25, 3677.0 / 365.25, 5330.0 / 365.25} // days from 2012-04-15
+	_, slope := stat.LinearRegression(xs, []float64{8.05, 7.40, 6.62, 5.71}, nil, false)
+	check("A-01", "fitted rate", byID["A-01"].Result.RateMMPerY, -slope)
+	check("A-01", "remaining life", byID["A-01"].Result.RemainingLifeY, (5.71-3.8)/-slope)
 	// N5-01: one visit; nominal 8.56 at installed 2021-05 (2021-05-15, 2013 days).
 	lt = (8.56 - 8.12) / (2013 / 365.25)
 	check("N5-01", "nominal-based long-term rate", byID["N5-01"].Result.RateMMPerY, lt)

@@ -17,6 +17,9 @@ import (
 	east "github.com/yuin/goldmark/extension/ast"
 	"github.com/yuin/goldmark/parser"
 	"github.com/yuin/goldmark/text"
+
+	"github.com/lossline/lossline/survey/required"
+	"github.com/lossline/lossline/survey/wallloss"
 )
 
 // markdown parses checklists: front matter, GFM tables and task lists only
@@ -229,6 +232,11 @@ func (r *checklistReader) list(l *ast.List) {
 		for c := item.FirstChild(); c != nil; c = c.NextSibling() {
 			switch c := c.(type) {
 			case *ast.List:
+				if r.comp != nil && r.comp.Design.requiredInputs != nil && c.PreviousSibling() != nil &&
+					r.lineOf(c.PreviousSibling()) == r.comp.Design.Lines["required"] {
+					r.methodInputs(c)
+					continue
+				}
 				r.list(c)
 			case *ast.TextBlock, *ast.Paragraph:
 				r.listText(c)
@@ -265,7 +273,30 @@ func (r *checklistReader) listText(block ast.Node) {
 }
 
 // designKeys are the keys of a component's design list.
-var designKeys = []string{"nominal", "required", "installed", "consequence"}
+var designKeys = []string{"nominal", "required", "installed", "consequence", "rate model", "assumed rate", "corrosivity", "interval rule"}
+
+// methodInputs reads the nested `name: value` list under `required: METHOD`.
+func (r *checklistReader) methodInputs(l *ast.List) {
+	d := &r.comp.Design
+	for item := l.FirstChild(); item != nil; item = item.NextSibling() {
+		block := item.FirstChild()
+		if block == nil {
+			continue
+		}
+		line := r.lineOf(block)
+		m := designItem.FindStringSubmatch(r.inlineSource(block))
+		if m == nil {
+			r.problems.Errorf(r.file, line, "input of %s: write it as `name: value`", d.RequiredMethod)
+			continue
+		}
+		key := strings.ToLower(strings.Join(strings.Fields(m[1]), " "))
+		if _, dup := d.requiredInputs[key]; dup {
+			r.problems.Errorf(r.file, line, "input %q given twice", key)
+			continue
+		}
+		d.requiredInputs[key] = m[2]
+	}
+}
 
 func (r *checklistReader) design(key, value string, line int) {
 	d := &r.comp.Design
@@ -275,17 +306,51 @@ func (r *checklistReader) design(key, value string, line int) {
 	}
 	d.Lines[key] = line
 	switch key {
-	case "nominal", "required":
+	case "required":
+		if v, err := ParseThickness(value, r.survey.Units); err == nil {
+			d.RequiredMM = &v
+			return
+		}
+		if first := strings.TrimSpace(value); first == "" || (first[0] >= '0' && first[0] <= '9') {
+			r.problems.Errorf(r.file, line, "required: %q is not a thickness (a number, optionally followed by mm or in) or a method (%s)", value, strings.Join(required.Methods, ", "))
+			return
+		}
+		d.RequiredMethod, d.requiredInputs = value, required.Inputs{}
+	case "rate model":
+		m := strings.ToLower(strings.TrimSpace(value))
+		if !slices.Contains(RateModels, m) {
+			r.problems.Errorf(r.file, line, "rate model %q is not one of %s", value, strings.Join(RateModels, ", "))
+			return
+		}
+		d.RateModel = m
+	case "assumed rate":
+		v, err := ParseRate(value, r.survey.Units)
+		if err != nil {
+			r.problems.Errorf(r.file, line, "assumed rate: %v", err)
+			return
+		}
+		d.AssumedRateMMPerY = &v
+	case "corrosivity":
+		c, err := wallloss.ParseCorrosivity(value)
+		if err != nil {
+			r.problems.Errorf(r.file, line, "%v", err)
+			return
+		}
+		d.Corrosivity = c
+	case "interval rule":
+		rule, err := wallloss.ParseIntervalRule(value)
+		if err != nil {
+			r.problems.Errorf(r.file, line, "%v", err)
+			return
+		}
+		d.Rule = &rule
+	case "nominal":
 		v, err := ParseThickness(value, r.survey.Units)
 		if err != nil {
 			r.problems.Errorf(r.file, line, "%s: %q is not a thickness (a number, optionally followed by mm or in)", key, value)
 			return
 		}
-		if key == "nominal" {
-			d.NominalMM = &v
-		} else {
-			d.RequiredMM = &v
-		}
+		d.NominalMM = &v
 	case "installed":
 		dt, ok := ParseVisitDate(value)
 		if !ok {

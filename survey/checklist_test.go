@@ -100,8 +100,8 @@ func TestParseDemo(t *testing.T) {
 	if s.Title == "" || s.Units != MM || s.Date.Format("2006-01-02") != "2026-11-18" {
 		t.Errorf("front matter: %q %q %v", s.Title, s.Units, s.Date)
 	}
-	if len(s.Assets) != 3 || len(s.AllCMLs()) != 21 {
-		t.Fatalf("%d assets, %d CMLs; want 3 and 21", len(s.Assets), len(s.AllCMLs()))
+	if len(s.Assets) != 4 || len(s.AllCMLs()) != 28 {
+		t.Fatalf("%d assets, %d CMLs; want 4 and 28", len(s.Assets), len(s.AllCMLs()))
 	}
 	byID := map[string]Located{}
 	for _, l := range s.AllCMLs() {
@@ -133,8 +133,21 @@ func TestParseDemo(t *testing.T) {
 			}
 		}
 	}
-	if open != 4 {
-		t.Errorf("%d scope items not done, want 4", open)
+	if open != 5 {
+		t.Errorf("%d scope items not done, want 5", open)
+	}
+	// Shell course 1: API 653 §4.3.3.1 SI form from the nested inputs, S for an
+	// unknown material in course 1 = 23 595 psi = 162.68 MPa:
+	// 4.9 × (12.8 − 0.3) × 24 × 0.86 / (162.68 × 0.85) = 9.1424 mm.
+	c1 := byID["T1-01"].Component.Design
+	if c1.RequiredCalc == nil || math.Abs(*c1.RequiredMM-9.1424) > 1e-4 {
+		t.Errorf("shell course 1 required %v (calc %v)", c1.RequiredMM, c1.RequiredCalc)
+	}
+	if r := byID["G1-01"].Component.Design.Rule; r == nil || r.Code() != "fixed-6y" {
+		t.Errorf("G1 interval rule %v", r)
+	}
+	if d := byID["BP-01"].Component.Design; d.Rule == nil || !strings.Contains(d.Rule.Describe(10), "at most 20 years") {
+		t.Errorf("bottom rule without a release prevention barrier: %v", d.Rule)
 	}
 	if got := byID["T1-02"].CML.PhotoRefs; len(got) != 1 || got[0] != "tank-t101/t101-c1-north.jpg" {
 		t.Errorf("T1-02 photos %v", got)
@@ -205,5 +218,46 @@ func TestReadmeExampleParses(t *testing.T) {
 	// 0.337 in nominal of the nozzle = 8.5598 mm.
 	if n := *cmls[2].Component.Design.NominalMM; math.Abs(n-8.5598) > 1e-9 {
 		t.Errorf("nozzle nominal %v mm", n)
+	}
+}
+
+// Design-list problems of the methods and rules point at their line.
+func TestDesignProblems(t *testing.T) {
+	head := "---\ntitle: x\ndate: 2025-01-01\nunits: mm\n---\n## C\n\n- nominal: 10\n"
+	for _, c := range []struct{ name, list, want string }{
+		{"unknown method", "- required: Barlow\n", `survey.md:9: required: unknown method "Barlow"`},
+		{"missing input", "- required: ASME B31.3 pipe\n  - pressure: 2 MPa\n", `survey.md:9: required: missing input "outside diameter"`},
+		{"input not name: value", "- required: API 653 bottom\n  - no barrier\n", "survey.md:10: input of API 653 bottom: write it as `name: value`"},
+		{"wrong kind", "- required: API 653 bottom\n  - release prevention barrier: maybe\n", `survey.md:9: required: release prevention barrier: "maybe" is not yes or no`},
+		{"rate model", "- rate model: average\n", `survey.md:9: rate model "average" is not one of long, short, max, fit`},
+		{"interval rule", "- interval rule: API 570 class 7\n", `survey.md:9: interval rule "API 570 class 7" is not one of`},
+		{"corrosivity", "- corrosivity: C9\n", `survey.md:9: corrosivity "C9" is not an ISO 9223 category`},
+		{"assumed rate", "- assumed rate: fast\n", `survey.md:9: assumed rate: "fast" is not a rate`},
+		{"required above nominal by method", "- required: section loss\n  - allowed section loss: 140 %\n", "survey.md:9: required: allowed section loss must be between 0 and 100 %"},
+	} {
+		src := head + c.list + "\n| CML | 2024-01-01 |\n|---|---|\n| A | 9 |\n"
+		_, problems := ParseChecklist("survey.md", []byte(src))
+		found := false
+		for _, p := range problems {
+			found = found || strings.HasPrefix(p.String(), c.want)
+		}
+		if !found {
+			t.Errorf("%s: problems %v lack %q", c.name, problems, c.want)
+		}
+	}
+}
+
+func TestParseRate(t *testing.T) {
+	for _, c := range []struct {
+		in   string
+		def  Unit
+		want float64
+	}{
+		{"0.12 mm/y", MM, 0.12}, {"4 mpy", MM, 0.1016}, {"0.004 in/y", MM, 0.1016}, {"0.1", MM, 0.1}, {"0.004", Inch, 0.1016}, {"25 µm/a", MM, 0.025},
+	} {
+		got, err := ParseRate(c.in, c.def)
+		if err != nil || math.Abs(got-c.want) > 1e-12 {
+			t.Errorf("ParseRate(%q) = %v %v, want %v", c.in, got, err, c.want)
+		}
 	}
 }

@@ -1,6 +1,11 @@
 package survey
 
-import "time"
+import (
+	"time"
+
+	"github.com/lossline/lossline/survey/required"
+	"github.com/lossline/lossline/survey/wallloss"
+)
 
 // Survey is one inspection visit's checklist, with the readings of earlier
 // visits that its tables carry. Thicknesses are held in millimetres whatever
@@ -43,11 +48,25 @@ type Component struct {
 // Design is a component's design data from its `key: value` list.
 type Design struct {
 	NominalMM   *float64
-	RequiredMM  *float64
+	RequiredMM  *float64 // written, or computed by RequiredCalc
 	Installed   *VisitDate
 	Consequence Consequence
 	Lines       map[string]int // key -> line, for messages
+
+	// RequiredMethod is the method written after `required:`, if not a number;
+	// RequiredCalc is its result with every input and step.
+	RequiredMethod string
+	RequiredCalc   *required.Calculation
+	requiredInputs required.Inputs
+
+	RateModel         string                 // "" for the settings' rate model
+	AssumedRateMMPerY *float64               // single-visit estimate
+	Corrosivity       wallloss.Corrosivity   // ISO 9223 category, single-visit estimate
+	Rule              *wallloss.IntervalRule // nil for the settings' rule
 }
+
+// RateModels are the rate models a component or the settings may choose.
+var RateModels = []string{wallloss.ModelLong, wallloss.ModelShort, wallloss.ModelMax, wallloss.ModelFit}
 
 // CML is a condition monitoring location: one row of a reading table.
 type CML struct {

@@ -118,3 +118,32 @@ func splitUnit(f string) (num, unit string) {
 	}
 	return f[:i], f[i:]
 }
+
+// ParseRate reads a corrosion rate: "0.12 mm/y", "4.5 mpy" (mils per year,
+// 1 mil = 0.001 in), "0.004 in/y"; a bare number is in the survey's unit per
+// year. The result is in mm/y.
+func ParseRate(s string, def Unit) (float64, error) {
+	t := strings.ToLower(strings.ReplaceAll(s, " ", ""))
+	i := strings.IndexFunc(t, func(r rune) bool { return (r < '0' || r > '9') && r != '.' })
+	num, unit := t, ""
+	if i >= 0 {
+		num, unit = t[:i], t[i:]
+	}
+	v, err := strconv.ParseFloat(num, 64)
+	if err != nil || v < 0 {
+		return 0, fmt.Errorf("%q is not a rate such as 0.12 mm/y or 4.5 mpy", s)
+	}
+	switch unit {
+	case "":
+		return def.ToMM(v), nil
+	case "mm/y", "mm/yr", "mm/a", "mm/year":
+		return v, nil
+	case "in/y", "in/yr", "in/year":
+		return v * MMPerInch, nil
+	case "mpy", "mil/y", "mils/y", "mils/yr":
+		return v * MMPerInch / 1000, nil
+	case "µm/a", "um/y", "µm/y", "um/a":
+		return v / 1000, nil
+	}
+	return 0, fmt.Errorf("%q: unknown rate unit %q (use mm/y, in/y or mpy)", s, unit)
+}

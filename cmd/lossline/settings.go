@@ -5,12 +5,14 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/viper"
 
 	"github.com/lossline/lossline/report"
+	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 	"github.com/lossline/lossline/templates"
 )
@@ -23,6 +25,7 @@ type settings struct {
 	Policy    wallloss.Policy
 	Photos    report.PhotoSettings
 	Templates templates.Set
+	Display   report.Display
 	Sources   []string // files read, lowest precedence first
 }
 
@@ -33,7 +36,15 @@ const (
 	keyQuality     = "photo-quality"
 	keyTemplates   = "templates"
 	keyConfig      = "config"
+	keyRateModel   = "rate-model"
+	keyRule        = "interval-rule"
+	keyTolerance   = "gauge-tolerance-mm"
+	keyThickUnits  = "thickness-units"
+	keyRateUnits   = "rate-units"
 )
+
+// settingKeys are every key a settings file may hold.
+var settingKeys = []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates, keyRateModel, keyRule, keyTolerance, keyThickUnits, keyRateUnits}
 
 // addSettingFlags declares the flags that override settings files.
 func addSettingFlags(c *cobra.Command) {
@@ -43,6 +54,11 @@ func addSettingFlags(c *cobra.Command) {
 	f.Int(keyLongSide, 1600, "longest side of photos in the report, `pixels`")
 	f.Int(keyQuality, 80, "JPEG `quality` of photos in the report (1-100)")
 	f.String(keyTemplates, "", "`folder` whose report texts replace the built-in ones")
+	f.String(keyRateModel, wallloss.ModelMax, "rate `model`: long, short, max or fit")
+	f.String(keyRule, "half life", "interval `rule`: half life, API 570 class N, API 510, API 653 shell, API 653 bottom, fixed N years")
+	f.Float64(keyTolerance, wallloss.DefaultToleranceMM, "gauge tolerance, `mm`: smaller changes are measurement noise")
+	f.String(keyThickUnits, "", "thickness `units` shown in the report: mm or in (default: the survey's)")
+	f.String(keyRateUnits, "", "rate `units` shown in the report: mm/y, mpy or in/y (default: mm/y for mm, mpy for in)")
 }
 
 // loadSettings merges, lowest first: built-in defaults, SURVEY/lossline.yaml,
@@ -53,6 +69,11 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	v.SetDefault(keyLongSide, 1600)
 	v.SetDefault(keyQuality, 80)
 	v.SetDefault(keyTemplates, "")
+	v.SetDefault(keyRateModel, wallloss.ModelMax)
+	v.SetDefault(keyRule, "half life")
+	v.SetDefault(keyTolerance, wallloss.DefaultToleranceMM)
+	v.SetDefault(keyThickUnits, "")
+	v.SetDefault(keyRateUnits, "")
 	var s settings
 	templatesBase := ""
 	for _, file := range []string{filepath.Join(surveyDir, SettingsFile), flagString(c, keyConfig)} {
@@ -81,12 +102,33 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	v.SetEnvPrefix("LOSSLINE")
 	v.SetEnvKeyReplacer(strings.NewReplacer("-", "_"))
 	v.AutomaticEnv()
-	for _, k := range []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates} {
+	for _, k := range settingKeys {
 		if err := v.BindPFlag(k, c.Flags().Lookup(k)); err != nil {
 			return s, err
 		}
 	}
-	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap)}
+	rule, err := wallloss.ParseIntervalRule(v.GetString(keyRule))
+	if err != nil {
+		return s, badInput{fmt.Errorf("%s: %v", keyRule, err)}
+	}
+	model := strings.ToLower(v.GetString(keyRateModel))
+	if !slices.Contains(survey.RateModels, model) {
+		return s, badInput{fmt.Errorf("%s %q is not one of %s", keyRateModel, model, strings.Join(survey.RateModels, ", "))}
+	}
+	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: model, Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
+	if t := v.GetString(keyThickUnits); t != "" {
+		u, ok := survey.ParseUnit(t)
+		if !ok {
+			return s, badInput{fmt.Errorf("%s %q is not mm or in", keyThickUnits, t)}
+		}
+		s.Display.Thickness = u
+	}
+	if r := v.GetString(keyRateUnits); r != "" {
+		if !slices.Contains(report.RateUnits, r) {
+			return s, badInput{fmt.Errorf("%s %q is not one of %s", keyRateUnits, r, strings.Join(report.RateUnits, ", "))}
+		}
+		s.Display.Rate = r
+	}
 	s.Photos = report.PhotoSettings{LongSide: v.GetInt(keyLongSide), Quality: v.GetInt(keyQuality)}
 	if t := v.GetString(keyTemplates); t != "" {
 		if !filepath.IsAbs(t) && templatesBase != "" && !c.Flags().Changed(keyTemplates) && os.Getenv("LOSSLINE_TEMPLATES") == "" {
@@ -102,6 +144,8 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 		return s, badInput{fmt.Errorf("%s must be between 0 and 50 years, not %v", keyIntervalCap, s.Policy.IntervalCapYears)}
 	case s.Photos.LongSide < 200 || s.Photos.LongSide > 8000:
 		return s, badInput{fmt.Errorf("%s must be between 200 and 8000 pixels, not %d", keyLongSide, s.Photos.LongSide)}
+	case s.Policy.ToleranceMM < 0 || s.Policy.ToleranceMM > 2:
+		return s, badInput{fmt.Errorf("%s must be between 0 and 2 mm, not %v", keyTolerance, s.Policy.ToleranceMM)}
 	case s.Photos.Quality < 1 || s.Photos.Quality > 100:
 		return s, badInput{fmt.Errorf("%s must be between 1 and 100, not %d", keyQuality, s.Photos.Quality)}
 	}
@@ -111,10 +155,9 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 // unknownKeys rejects settings files with keys lossline does not know, so a
 // misspelt key is not silently ignored.
 func unknownKeys(v *viper.Viper, file string) error {
-	known := map[string]bool{keyIntervalCap: true, keyLongSide: true, keyQuality: true, keyTemplates: true}
 	for _, k := range v.AllKeys() {
-		if !known[k] {
-			return badInput{fmt.Errorf("%s: unknown setting %q (known: %s, %s, %s, %s)", file, k, keyIntervalCap, keyLongSide, keyQuality, keyTemplates)}
+		if !slices.Contains(settingKeys, k) {
+			return badInput{fmt.Errorf("%s: unknown setting %q (known: %s)", file, k, strings.Join(settingKeys, ", "))}
 		}
 	}
 	return nil

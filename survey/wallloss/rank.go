@@ -10,14 +10,14 @@ type Ranked struct {
 }
 
 // CompareUrgency orders two CMLs, most urgent first: at or below required,
-// then shortest remaining life, then no measurable loss, then unknown; ties
+// then shortest remaining life (for a fitted rate, its lower bound), then no measurable loss, then unknown; ties
 // by higher consequence, then by id.
 func CompareUrgency(a, b Ranked) int {
 	if c := cmp.Compare(a.Result.Class, b.Result.Class); c != 0 {
 		return c
 	}
 	if a.Result.Class == FiniteLife {
-		if c := cmp.Compare(*a.Result.RemainingLifeY, *b.Result.RemainingLifeY); c != 0 {
+		if c := cmp.Compare(*a.Result.PlanningLifeY(), *b.Result.PlanningLifeY()); c != 0 {
 			return c
 		}
 	}

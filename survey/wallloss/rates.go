@@ -11,6 +11,18 @@ type Reading struct {
 	ThicknessMM float64
 }
 
+// Rate models.
+const (
+	ModelLong  = "long"  // long-term rate only
+	ModelShort = "short" // short-term rate only
+	ModelMax   = "max"   // the larger of the two (default)
+	ModelFit   = "fit"   // least-squares line through all visits
+	// Single-visit estimates, chosen automatically:
+	ModelNominal = "nominal-based" // from nominal at the installed date
+	ModelAssumed = "assumed"       // a rate the engineer wrote down
+	ModelISO9224 = "iso-9224"      // ISO 9223 category and ISO 9224 model
+)
+
 // Input is what the computation needs for one CML.
 type Input struct {
 	Readings    []Reading // oldest first
@@ -18,16 +30,29 @@ type Input struct {
 	RequiredMM  *float64
 	Installed   *time.Time
 	LatestVisit time.Time // the newest visit of the whole survey
+
+	RateModel         string        // "" for the policy's
+	Rule              *IntervalRule // nil for the policy's
+	AssumedRateMMPerY *float64      // single-visit estimate written by the engineer
+	Corrosivity       Corrosivity   // single-visit estimate for atmospheric exposure
 }
 
 // Policy holds the settings the computation follows.
 type Policy struct {
-	// IntervalCapYears is the longest interval to the next inspection.
-	IntervalCapYears float64
+	IntervalCapYears float64      // cap of the half-life rule
+	RateModel        string       // long, short, max or fit
+	Rule             IntervalRule // default interval rule
+	ToleranceMM      float64      // gauge tolerance: smaller changes are noise
 }
 
+// DefaultToleranceMM is the default gauge tolerance: the 95 % bound of the
+// difference of two readings each with a standard uncertainty of 0.1 mm,
+// 2·√2·0.1 = 0.28 mm (common practice; 0.1 mm is a typical UT gauge accuracy
+// on smooth parallel surfaces, from memory).
+const DefaultToleranceMM = 0.28
+
 // DefaultPolicy is the policy used when the settings say nothing.
-var DefaultPolicy = Policy{IntervalCapYears: 10}
+var DefaultPolicy = Policy{IntervalCapYears: 10, RateModel: ModelMax, Rule: IntervalRule{Kind: RuleHalfLife}, ToleranceMM: DefaultToleranceMM}
 
 // LifeClass orders results for ranking.
 type LifeClass int
@@ -46,10 +71,14 @@ const (
 	FlagThicknessIncrease = "thickness-increase"
 	FlagSingleVisit       = "single-visit"
 	FlagNominalBased      = "nominal-based"
+	FlagEstimate          = "estimate"
 	FlagNoRate            = "no-rate"
 	FlagNoRequired        = "no-required"
 	FlagNoReadings        = "no-readings"
 	FlagNotMeasuredLatest = "not-remeasured"
+	FlagNoMeasurableLoss  = "no-measurable-loss"
+	FlagAboveNominal      = "above-nominal"
+	FlagFitNeedsThree     = "fit-needs-3-visits"
 )
 
 // Result is the outcome for one CML. Nil pointers are values that cannot be computed.
@@ -58,26 +87,47 @@ type Result struct {
 	CurrentDate     *time.Time
 	RateLongMMPerY  *float64
 	RateShortMMPerY *float64
-	RateMMPerY      *float64 // the governing rate: the larger of long and short
+	RateMMPerY      *float64 // the governing rate under the model
+	RateModel       string   // the model that gave RateMMPerY
+	Fit             *LineFit // the least-squares line, model fit only
+	RateUpperMMPerY *float64 // fit: rate at the one-sided 95 % upper bound
 	RemainingLifeY  *float64
-	Retirement      *time.Time
-	NextInspection  *time.Time
-	NextBasis       string // why the next inspection falls when it does
-	Class           LifeClass
-	Flags           []string
+	// RemainingLifeLowY is the remaining life at the rate's upper 95 % bound (fit only).
+	RemainingLifeLowY *float64
+	Retirement        *time.Time
+	NextInspection    *time.Time
+	NextBasis         string // what set the next inspection
+	NextExternal      *time.Time
+	Rule              IntervalRule
+	Class             LifeClass
+	Flags             []string
 }
 
-// Next-inspection bases.
-const (
-	BasisHalfLife = "half-life"
-	BasisCap      = "cap"
-	BasisNow      = "now"
-)
+// PlanningLifeY is the remaining life dates and ranking use: the lower bound
+// for a fitted rate, else the central value.
+func (r Result) PlanningLifeY() *float64 {
+	if r.RemainingLifeLowY != nil {
+		return r.RemainingLifeLowY
+	}
+	return r.RemainingLifeY
+}
+
+// Next-inspection basis for a CML at or below required.
+const BasisNow = "now"
 
 // Assess computes rates, remaining life and dates for one CML.
 func Assess(in Input, p Policy) Result {
-	var r Result
-	r.Class = LifeUnknown
+	r := Result{Class: LifeUnknown, Rule: p.Rule}
+	if in.Rule != nil {
+		r.Rule = *in.Rule
+	}
+	model := p.RateModel
+	if in.RateModel != "" {
+		model = in.RateModel
+	}
+	if model == "" {
+		model = ModelMax
+	}
 	n := len(in.Readings)
 	if n == 0 {
 		r.flag(FlagNoReadings)
@@ -90,72 +140,164 @@ func Assess(in Input, p Policy) Result {
 	if cur.Date.Before(in.LatestVisit) {
 		r.flag(FlagNotMeasuredLatest)
 	}
-
-	switch {
-	case n >= 2:
-		first, prev := in.Readings[0], in.Readings[n-2]
-		r.RateLongMMPerY = r.rate(first, cur)
-		r.RateShortMMPerY = r.rate(prev, cur)
-	default:
-		r.flag(FlagSingleVisit)
-		if in.NominalMM != nil && in.Installed != nil && in.Installed.Before(cur.Date) {
-			r.RateLongMMPerY = r.rate(Reading{Date: *in.Installed, ThicknessMM: *in.NominalMM}, cur)
-			r.flag(FlagNominalBased)
+	if in.NominalMM != nil {
+		for _, rd := range in.Readings {
+			if rd.ThicknessMM > *in.NominalMM+p.ToleranceMM {
+				r.flag(FlagAboveNominal)
+			}
 		}
 	}
-	switch {
-	case r.RateLongMMPerY != nil && r.RateShortMMPerY != nil:
-		r.RateMMPerY = ptr(math.Max(*r.RateLongMMPerY, *r.RateShortMMPerY))
-	case r.RateLongMMPerY != nil:
-		r.RateMMPerY = ptr(*r.RateLongMMPerY)
-	default:
+
+	var measurable bool
+	if n >= 2 {
+		measurable = r.measuredRate(in.Readings, model, p.ToleranceMM)
+	} else {
+		measurable = r.estimatedRate(in, cur, p.ToleranceMM)
+	}
+	if r.RateMMPerY != nil && !measurable {
+		r.RateMMPerY = ptr(0.0)
+		r.flag(FlagNoMeasurableLoss)
+	}
+	if r.RateMMPerY == nil {
 		r.flag(FlagNoRate)
 	}
-
 	if in.RequiredMM == nil {
 		r.flag(FlagNoRequired)
 		return r
 	}
-	margin := cur.ThicknessMM - *in.RequiredMM
+	r.dates(cur, *in.RequiredMM, in, p)
+	return r
+}
+
+// measuredRate sets the long- and short-term rates and the governing rate of
+// the model; it reports whether that rate is a measurable loss.
+func (r *Result) measuredRate(rs []Reading, model string, tol float64) bool {
+	n := len(rs)
+	first, prev, cur := rs[0], rs[n-2], rs[n-1]
+	lt, ltOK := r.rate(first, cur, tol)
+	st, stOK := r.rate(prev, cur, tol)
+	r.RateLongMMPerY, r.RateShortMMPerY = &lt, &st
+	if model == ModelFit {
+		if f, ok := FitLine(rs); ok {
+			rate := max(-f.Slope, 0)
+			span := YearsBetween(first.Date, cur.Date)
+			r.Fit, r.RateModel, r.RateMMPerY = &f, ModelFit, ptr(rate)
+			upper := rate + StudentT95(f.N-2)*f.SESlope
+			r.RateUpperMMPerY = &upper
+			return rate*span > tol
+		}
+		r.flag(FlagFitNeedsThree)
+		model = ModelMax
+	}
+	r.RateModel = model
+	switch model {
+	case ModelLong:
+		r.RateMMPerY = ptr(lt)
+		return ltOK
+	case ModelShort:
+		r.RateMMPerY = ptr(st)
+		return stOK
+	}
+	// max: the larger of the measurable rates.
+	switch {
+	case ltOK && stOK:
+		r.RateMMPerY = ptr(math.Max(lt, st))
+	case ltOK:
+		r.RateMMPerY = ptr(lt)
+	case stOK:
+		r.RateMMPerY = ptr(st)
+	default:
+		r.RateMMPerY = ptr(math.Max(lt, st))
+		return false
+	}
+	return true
+}
+
+// estimatedRate sets a single-visit estimate: an assumed rate, else the ISO
+// 9224 model for the site's corrosivity, else nominal at the installed date.
+func (r *Result) estimatedRate(in Input, cur Reading, tol float64) bool {
+	r.flag(FlagSingleVisit)
+	switch {
+	case in.AssumedRateMMPerY != nil:
+		r.RateModel, r.RateMMPerY = ModelAssumed, ptr(*in.AssumedRateMMPerY)
+		r.flag(FlagEstimate)
+		return *in.AssumedRateMMPerY > 0
+	case in.Corrosivity != "":
+		// The rate stored is set once the remaining life is known (dates).
+		r.RateModel = ModelISO9224
+		r.RateMMPerY = ptr(in.Corrosivity.FirstYearRateUM() / 1000)
+		r.flag(FlagEstimate)
+		return true
+	case in.NominalMM != nil && in.Installed != nil && in.Installed.Before(cur.Date):
+		rate, ok := r.rate(Reading{Date: *in.Installed, ThicknessMM: *in.NominalMM}, cur, tol)
+		r.RateModel, r.RateLongMMPerY, r.RateMMPerY = ModelNominal, ptr(rate), ptr(rate)
+		r.flag(FlagNominalBased)
+		r.flag(FlagEstimate)
+		return ok
+	}
+	return false
+}
+
+// dates sets remaining life, retirement and next inspection.
+func (r *Result) dates(cur Reading, requiredMM float64, in Input, p Policy) {
+	margin := cur.ThicknessMM - requiredMM
 	switch {
 	case margin <= 0:
 		r.flag(FlagBelowRequired)
 		r.Class = AtOrBelowRequired
 		r.RemainingLifeY = ptr(0.0)
-		r.Retirement = ptr(cur.Date)
-		r.NextInspection = ptr(cur.Date)
-		r.NextBasis = BasisNow
+		r.Retirement, r.NextInspection, r.NextBasis = ptr(cur.Date), ptr(cur.Date), BasisNow
+		return
 	case r.RateMMPerY == nil:
-		// no rate: nothing more can be said
+		if y := r.Rule.NoRateInterval(); y > 0 {
+			r.NextInspection, r.NextBasis = ptr(AddYears(cur.Date, y)), "rate unknown: 5 years"
+			r.NextExternal = ptr(AddYears(cur.Date, 5))
+		}
+		return
 	case *r.RateMMPerY == 0:
 		r.Class = NoMeasurableLoss
-		r.NextInspection = ptr(AddYears(cur.Date, p.IntervalCapYears))
-		r.NextBasis = BasisCap
-	default:
-		r.Class = FiniteLife
-		life := margin / *r.RateMMPerY
-		r.RemainingLifeY = ptr(life)
-		r.Retirement = ptr(AddYears(cur.Date, life))
-		if life/2 < p.IntervalCapYears {
-			r.NextInspection = ptr(AddYears(cur.Date, life/2))
-			r.NextBasis = BasisHalfLife
-		} else {
-			r.NextInspection = ptr(AddYears(cur.Date, p.IntervalCapYears))
-			r.NextBasis = BasisCap
+		y := r.Rule.maxYears(p.IntervalCapYears)
+		r.NextInspection, r.NextBasis = ptr(AddYears(cur.Date, y)), "no measurable loss"
+		if r.Rule.Kind == RuleAPI653Shell {
+			r.NextExternal = ptr(AddYears(cur.Date, 5))
 		}
+		return
 	}
-	return r
+	r.Class = FiniteLife
+	var life float64
+	if r.RateModel == ModelISO9224 {
+		age := 0.0 // unknown exposure age: the start of the curve, where loss is fastest
+		if in.Installed != nil {
+			age = YearsBetween(*in.Installed, cur.Date)
+		}
+		life = ISO9224Life(in.Corrosivity.FirstYearRateUM(), ISO9224SteelExponentB2, age, margin*1000)
+		r.RateMMPerY = ptr(margin / life) // the average rate to retirement, so RL = margin / rate
+	} else {
+		life = margin / *r.RateMMPerY
+	}
+	r.RemainingLifeY = ptr(life)
+	r.Retirement = ptr(AddYears(cur.Date, life))
+	if r.RateUpperMMPerY != nil {
+		r.RemainingLifeLowY = ptr(margin / *r.RateUpperMMPerY)
+	}
+	plan := *r.PlanningLifeY()
+	y, basis := r.Rule.Interval(plan, p.IntervalCapYears)
+	r.NextInspection, r.NextBasis = ptr(AddYears(cur.Date, y)), basis
+	if r.Rule.Kind == RuleAPI653Shell {
+		r.NextExternal = ptr(AddYears(cur.Date, min(plan/4, 5)))
+	}
 }
 
-// rate is the metal-loss rate from a to b in mm/y; an increase counts as zero
-// loss and is flagged for re-measurement.
-func (r *Result) rate(a, b Reading) *float64 {
-	v := (a.ThicknessMM - b.ThicknessMM) / YearsBetween(a.Date, b.Date)
-	if v < 0 {
+// rate is the metal-loss rate from a to b in mm/y and whether the loss is
+// measurable (larger than the tolerance). A thickness increase counts as zero
+// loss; beyond the tolerance it is flagged for re-measurement.
+func (r *Result) rate(a, b Reading, tol float64) (float64, bool) {
+	loss := a.ThicknessMM - b.ThicknessMM
+	if loss < -tol {
 		r.flag(FlagThicknessIncrease)
-		v = 0
 	}
-	return &v
+	v := max(loss, 0) / YearsBetween(a.Date, b.Date)
+	return v, loss > tol
 }
 
 func (r *Result) flag(f string) {

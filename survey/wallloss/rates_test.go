@@ -61,8 +61,8 @@ func TestAssessAPI570WorkedExample(t *testing.T) {
 	// Half the remaining life (10.14 y) exceeds the 10-year cap (API 570 Table 2,
 	// Class 2): next inspection 2023-06-01 + 10 calendar years.
 	sameDay(t, "next inspection", res.NextInspection, "2033-06-01")
-	if res.NextBasis != BasisCap {
-		t.Errorf("next-inspection basis = %q, want %q", res.NextBasis, BasisCap)
+	if res.NextBasis != "10-year limit" {
+		t.Errorf("next-inspection basis = %q, want the 10-year limit", res.NextBasis)
 	}
 	// 20 calendar years, then 0.275 y × 365.25 = 100.4 days rounded down.
 	sameDay(t, "retirement date", res.Retirement, "2043-09-09")
@@ -86,7 +86,7 @@ func TestAssessNominalBaseline(t *testing.T) {
 		NominalMM:  ptr(0.280 * in),
 		Installed:  ptr(day("2015-01-01")),
 		RequiredMM: ptr(0.100 * in),
-	}, DefaultPolicy)
+	}, Policy{IntervalCapYears: 10})
 	near(t, "long-term rate", res.RateLongMMPerY, 0.002250*in, 1e-6)
 	if res.RateShortMMPerY != nil {
 		t.Errorf("short-term rate = %v, want none from a single visit", *res.RateShortMMPerY)
@@ -107,12 +107,14 @@ func TestAssessNominalBaseline(t *testing.T) {
 }
 
 // A later reading above an earlier one: no code formula credits growth; the
-// rate is taken as zero and the CML flagged for re-measurement (common practice).
+// rate is taken as zero and, beyond the gauge tolerance, the CML is flagged for
+// re-measurement (common practice; REFERENCE.md §10).
 func TestAssessThicknessIncrease(t *testing.T) {
+	noTol := Policy{IntervalCapYears: 10}
 	res := Assess(Input{
 		Readings:   []Reading{{day("2016-04-01"), 9.80}, {day("2021-04-01"), 9.70}, {day("2026-04-01"), 9.75}},
 		RequiredMM: ptr(6.0),
-	}, DefaultPolicy)
+	}, noTol)
 	if !res.HasFlag(FlagThicknessIncrease) {
 		t.Errorf("flags %v lack %s", res.Flags, FlagThicknessIncrease)
 	}
@@ -121,7 +123,7 @@ func TestAssessThicknessIncrease(t *testing.T) {
 	near(t, "long-term rate", res.RateLongMMPerY, 0.05/(3652/365.25), 1e-9)
 	near(t, "governing rate", res.RateMMPerY, 0.05/(3652/365.25), 1e-9)
 
-	res = Assess(Input{Readings: []Reading{{day("2016-04-01"), 9.70}, {day("2026-04-01"), 9.75}}, RequiredMM: ptr(6.0)}, DefaultPolicy)
+	res = Assess(Input{Readings: []Reading{{day("2016-04-01"), 9.70}, {day("2026-04-01"), 9.75}}, RequiredMM: ptr(6.0)}, noTol)
 	if res.Class != NoMeasurableLoss || res.Retirement != nil || res.RemainingLifeY != nil {
 		t.Errorf("zero rate: class %v retirement %v life %v, want no measurable loss and no dates", res.Class, res.Retirement, res.RemainingLifeY)
 	}
