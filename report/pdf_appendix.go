@@ -11,6 +11,7 @@ func (d *doc) methods() error {
 		"Units":            string(d.u.u),
 		"IntervalCapYears": d.opts.Policy.IntervalCapYears,
 		"PhotoLongSide":    d.opts.Photos.LongSide,
+		"ToleranceMM":      d.opts.Policy.ToleranceMM,
 		"Flags":            flagMeanings,
 	})
 	if err != nil {
@@ -25,10 +26,12 @@ func (d *doc) methods() error {
 		tmpl = d.opts.Templates.Override + " (files there replace the built-in texts)"
 	}
 	d.keyValues([][2]string{
-		{"Interval cap", fmt.Sprintf("%g years", d.opts.Policy.IntervalCapYears)},
-		{"Governing rate", "larger of long-term and short-term"},
+		{"Rate model", rateModelText(d.opts.Policy.RateModel) + " (components may set their own)"},
+		{"Interval rule", d.opts.Policy.Rule.Describe(d.opts.Policy.IntervalCapYears) + " (components may set their own)"},
+		{"Half-life cap", fmt.Sprintf("%g years", d.opts.Policy.IntervalCapYears)},
+		{"Gauge tolerance", fmt.Sprintf("%g mm", d.opts.Policy.ToleranceMM)},
 		{"Year length", "365.25 days"},
-		{"Display units", fmt.Sprintf("%s, rates in %s", d.u.u, d.u.rateUnit)},
+		{"Display units", fmt.Sprintf("thickness in %s, rates in %s (1 mil = 0.001 in; results.json in mm and mm/y)", d.u.u, d.u.rateUnit)},
 		{"Photos", fmt.Sprintf("long side at most %d px, JPEG quality %d", d.opts.Photos.LongSide, d.opts.Photos.Quality)},
 		{"Report texts", tmpl},
 		{"Program", "lossline " + d.opts.Version},

@@ -61,8 +61,12 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		pairs = append(pairs, [2]string{"Assumed rate", d.u.rate(des.AssumedRateMMPerY) + " " + d.u.rateUnit + " (single-visit estimate written by the engineer)"})
 	}
 	if des.Corrosivity != "" {
-		pairs = append(pairs, [2]string{"Corrosivity", fmt.Sprintf("%s (ISO 9223): first-year rate of carbon steel up to %g µm/a, ISO 9224 exponent b = %g (single-visit estimate)",
-			des.Corrosivity, des.Corrosivity.FirstYearRateUM(), wallloss.ISO9224SteelExponentB2)})
+		metal := des.Metal
+		if metal == "" {
+			metal = wallloss.CarbonSteel
+		}
+		pairs = append(pairs, [2]string{"Corrosivity", fmt.Sprintf("%s (ISO 9223): first-year rate of %s up to %g µm/a, ISO 9224 exponent b = %g (single-visit estimate)",
+			des.Corrosivity, metal, des.Corrosivity.FirstYearRateUM(metal), wallloss.ISO9224ExponentB(metal))})
 	}
 	if g := survey.Governing(d.items, c); g != nil {
 		r := g.Result
@@ -239,8 +243,14 @@ func (d *doc) results(c *survey.Component) {
 			life += " (low " + years(r.RemainingLifeLowY) + ")"
 		}
 		st := status(r)
-		if len(r.Flags) > 0 {
-			st += "; " + flagsText(r.Flags)
+		var flags []string
+		for _, f := range r.Flags {
+			if strings.ReplaceAll(f, "-", " ") != st {
+				flags = append(flags, f)
+			}
+		}
+		if len(flags) > 0 {
+			st += "; " + flagsText(flags)
 		}
 		rows = append(rows, []string{m.ID, thick, d.u.rate(r.RateLongMMPerY), d.u.rate(r.RateShortMMPerY),
 			rate, life, day(r.Retirement), next, st})

@@ -25,7 +25,7 @@ func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 		d := loc.Component.Design
 		in := wallloss.Input{
 			NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest,
-			RateModel: d.RateModel, Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity,
+			RateModel: d.RateModel, Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity, Metal: d.Metal,
 		}
 		if d.Installed != nil {
 			in.Installed = &d.Installed.Time

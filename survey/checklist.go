@@ -273,7 +273,7 @@ func (r *checklistReader) listText(block ast.Node) {
 }
 
 // designKeys are the keys of a component's design list.
-var designKeys = []string{"nominal", "required", "installed", "consequence", "rate model", "assumed rate", "corrosivity", "interval rule"}
+var designKeys = []string{"nominal", "required", "installed", "consequence", "rate model", "assumed rate", "corrosivity", "metal", "interval rule"}
 
 // methodInputs reads the nested `name: value` list under `required: METHOD`.
 func (r *checklistReader) methodInputs(l *ast.List) {
@@ -337,6 +337,13 @@ func (r *checklistReader) design(key, value string, line int) {
 			return
 		}
 		d.Corrosivity = c
+	case "metal":
+		m := strings.ToLower(strings.Join(strings.Fields(value), " "))
+		if !slices.Contains(wallloss.Metals, m) {
+			r.problems.Errorf(r.file, line, "metal %q: the atmospheric model covers %s", value, strings.Join(wallloss.Metals, " and "))
+			return
+		}
+		d.Metal = m
 	case "interval rule":
 		rule, err := wallloss.ParseIntervalRule(value)
 		if err != nil {

@@ -261,3 +261,32 @@ func TestParseRate(t *testing.T) {
 		}
 	}
 }
+
+// Every required-thickness snippet in README.md parses under a component.
+func TestReadmeMethodSnippets(t *testing.T) {
+	readme, err := os.ReadFile(filepath.Join("..", "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := 0
+	for _, part := range strings.Split(string(readme), "```markdown\n")[1:] {
+		snippet, _, _ := strings.Cut(part, "```")
+		if !strings.HasPrefix(snippet, "- required:") {
+			continue
+		}
+		n++
+		src := "---\ntitle: x\ndate: 2025-01-01\nunits: mm\n---\n## C\n\n- nominal: 16\n" + snippet +
+			"\n| CML | 2024-01-01 |\n|---|---|\n| A | 9 |\n"
+		s, problems := ParseChecklist("survey.md", []byte(src))
+		if problems.HasErrors() {
+			t.Errorf("README snippet %d: %v", n, problems)
+			continue
+		}
+		if s.Assets[0].Components[0].Design.RequiredCalc == nil {
+			t.Errorf("README snippet %d computed nothing", n)
+		}
+	}
+	if n != 4 {
+		t.Errorf("%d method snippets in README, want 4", n)
+	}
+}

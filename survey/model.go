@@ -62,6 +62,7 @@ type Design struct {
 	RateModel         string                 // "" for the settings' rate model
 	AssumedRateMMPerY *float64               // single-visit estimate
 	Corrosivity       wallloss.Corrosivity   // ISO 9223 category, single-visit estimate
+	Metal             string                 // of the atmospheric estimate; "" for carbon steel
 	Rule              *wallloss.IntervalRule // nil for the settings' rule
 }
 

@@ -130,7 +130,7 @@ func (r *reader) word(names ...string) (string, bool) {
 }
 
 func (r *reader) note(name, text string, v float64, kind Kind) {
-	used := map[Kind]string{Length: "%.4g mm", Pressure: "%.5g MPa", Temperature: "%.4g °C", Number: "%.4g"}[kind]
+	used := map[Kind]string{Length: "%.6g mm", Pressure: "%.6g MPa", Temperature: "%.4g °C", Number: "%.4g"}[kind]
 	r.inputs = append(r.inputs, Input{Name: name, Written: text, Used: fmt.Sprintf(used, v)})
 }
 

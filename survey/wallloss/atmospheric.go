@@ -9,10 +9,27 @@ import (
 // Corrosivity is an ISO 9223:2012 atmospheric corrosivity category.
 type Corrosivity string
 
+// Metals the atmospheric model covers.
+const (
+	CarbonSteel = "carbon steel"
+	Zinc        = "zinc"
+)
+
+// Metals lists the metals the atmospheric model covers.
+var Metals = []string{CarbonSteel, Zinc}
+
 // firstYearSteelUM is the upper limit of each category's first-year corrosion
 // rate of carbon steel, µm/a (ISO 9223:2012 Table 2). Using the upper limit
 // gives the conservative end of the category.
 var firstYearSteelUM = map[Corrosivity]float64{"C1": 1.3, "C2": 25, "C3": 50, "C4": 80, "C5": 200, "CX": 700}
+
+// firstYearZincUM is the same for zinc (ISO 9223:2012 Table 2, from memory;
+// the ISO 14713-1 bands 0.1 / 0.7 / 2 / 4 / 8 µm/a agree).
+var firstYearZincUM = map[Corrosivity]float64{"C1": 0.1, "C2": 0.7, "C3": 2.1, "C4": 4.2, "C5": 8.4, "CX": 25}
+
+// iso9224B2 is ISO 9224:2012's time exponent b, the upper value B2 for design
+// (from memory; the averages B1 are 0.523 for carbon steel and 0.813 for zinc).
+var iso9224B2 = map[string]float64{CarbonSteel: 0.575, Zinc: 0.873}
 
 // ParseCorrosivity reads C1 … C5 or CX.
 func ParseCorrosivity(s string) (Corrosivity, error) {
@@ -23,12 +40,22 @@ func ParseCorrosivity(s string) (Corrosivity, error) {
 	return c, nil
 }
 
-// FirstYearRateUM is the category's first-year rate r_corr for carbon steel, µm/a.
-func (c Corrosivity) FirstYearRateUM() float64 { return firstYearSteelUM[c] }
+// FirstYearRateUM is the category's first-year rate r_corr of a metal, µm/a
+// ("" is carbon steel).
+func (c Corrosivity) FirstYearRateUM(metal string) float64 {
+	if metal == Zinc {
+		return firstYearZincUM[c]
+	}
+	return firstYearSteelUM[c]
+}
 
-// ISO9224SteelExponentB2 is the time exponent b for carbon steel in ISO
-// 9224:2012 (B2, the upper value for design; B1, the average, is 0.523).
-const ISO9224SteelExponentB2 = 0.575
+// ISO9224ExponentB is the time exponent b of a metal ("" is carbon steel).
+func ISO9224ExponentB(metal string) float64 {
+	if metal == Zinc {
+		return iso9224B2[Zinc]
+	}
+	return iso9224B2[CarbonSteel]
+}
 
 // ISO9224Loss is the metal loss in µm after t years of ISO 9224:2012's model:
 // D = r_corr·t^b up to 20 years, then the linear continuation

@@ -134,6 +134,10 @@ func TestISO9224(t *testing.T) {
 		t.Errorf("model %s flags %v", res.RateModel, res.Flags)
 	}
 	near(t, "reported rate recomputes the life", res.RateMMPerY, 3.0 / *res.RemainingLifeY, 1e-12)
+	// Zinc (galvanizing): C3 upper first-year rate 2.1 µm/a, b = 0.873.
+	zres := Assess(Input{Readings: []Reading{{day("2025-06-01"), 0.100}}, RequiredMM: ptr(0.020), Installed: ptr(day("2015-06-01")),
+		Corrosivity: "C3", Metal: Zinc}, Policy{IntervalCapYears: 10})
+	near(t, "zinc ISO 9224 life", zres.RemainingLifeY, ISO9224Life(2.1, 0.873, age, 80), 1e-9)
 	if _, err := ParseCorrosivity("C7"); err == nil {
 		t.Error("C7 accepted")
 	}

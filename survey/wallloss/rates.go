@@ -35,6 +35,7 @@ type Input struct {
 	Rule              *IntervalRule // nil for the policy's
 	AssumedRateMMPerY *float64      // single-visit estimate written by the engineer
 	Corrosivity       Corrosivity   // single-visit estimate for atmospheric exposure
+	Metal             string        // of the atmospheric estimate: carbon steel (default) or zinc
 }
 
 // Policy holds the settings the computation follows.
@@ -225,7 +226,7 @@ func (r *Result) estimatedRate(in Input, cur Reading, tol float64) bool {
 	case in.Corrosivity != "":
 		// The rate stored is set once the remaining life is known (dates).
 		r.RateModel = ModelISO9224
-		r.RateMMPerY = ptr(in.Corrosivity.FirstYearRateUM() / 1000)
+		r.RateMMPerY = ptr(in.Corrosivity.FirstYearRateUM(in.Metal) / 1000)
 		r.flag(FlagEstimate)
 		return true
 	case in.NominalMM != nil && in.Installed != nil && in.Installed.Before(cur.Date):
@@ -270,7 +271,7 @@ func (r *Result) dates(cur Reading, requiredMM float64, in Input, p Policy) {
 		if in.Installed != nil {
 			age = YearsBetween(*in.Installed, cur.Date)
 		}
-		life = ISO9224Life(in.Corrosivity.FirstYearRateUM(), ISO9224SteelExponentB2, age, margin*1000)
+		life = ISO9224Life(in.Corrosivity.FirstYearRateUM(in.Metal), ISO9224ExponentB(in.Metal), age, margin*1000)
 		r.RateMMPerY = ptr(margin / life) // the average rate to retirement, so RL = margin / rate
 	} else {
 		life = margin / *r.RateMMPerY
