@@ -14,7 +14,7 @@ import (
 // Demo CMLs recomputed by hand from the API 570 §7.1.1 formulas, with day
 // counts taken from a calendar (python3 datetime) and years = days/365.25.
 func TestAssessDemoByHand(t *testing.T) {
-	s, problems := Load(filepath.Join("..", "testdata", "demo"))
+	s, problems := LoadSeries(filepath.Join("..", "testdata", "demo"), nil)
 	if problems.HasErrors() {
 		t.Fatal(problems)
 	}

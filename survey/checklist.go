@@ -68,7 +68,7 @@ func (r *checklistReader) lineOf(n ast.Node) int {
 }
 
 // frontMatterKeys are the keys the front matter may hold.
-var frontMatterKeys = []string{"title", "site", "date", "inspector", "units"}
+var frontMatterKeys = []string{"title", "site", "date", "inspector", "units", "previous"}
 
 func (r *checklistReader) frontMatter(ctx parser.Context) {
 	s := r.survey
@@ -120,6 +120,23 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 		r.problems.Errorf(r.file, line, "unknown units %q (use mm or in)", units)
 	} else {
 		s.Units = u
+	}
+	if prev, ok := m["previous"]; ok && prev != nil {
+		s.PrevLine = r.keyLine("previous")
+		switch p := prev.(type) {
+		case string:
+			s.Previous = []string{p}
+		case []any:
+			for _, x := range p {
+				if str, ok := x.(string); ok && str != "" {
+					s.Previous = append(s.Previous, str)
+				} else {
+					r.problems.Errorf(r.file, s.PrevLine, "previous: %v is not a folder name", x)
+				}
+			}
+		default:
+			r.problems.Errorf(r.file, s.PrevLine, "previous: give a folder or a list of folders")
+		}
 	}
 	var unknown []string
 	for k := range m {
@@ -186,7 +203,7 @@ func (r *checklistReader) heading(h *ast.Heading) {
 		r.comp = nil
 	case 2:
 		a := r.currentAsset()
-		r.comp = &Component{Name: name, Line: line, Asset: a.Name, Design: Design{Lines: map[string]int{}}}
+		r.comp = &Component{Name: name, File: r.file, Line: line, Asset: a.Name, Design: Design{Lines: map[string]int{}}}
 		a.Components = append(a.Components, r.comp)
 	default:
 		r.note(Note{Markdown: "**" + name + "**", Line: line})

@@ -93,7 +93,7 @@ func TestFrontMatterProblems(t *testing.T) {
 }
 
 func TestParseDemo(t *testing.T) {
-	s, problems := Load(filepath.Join("..", "testdata", "demo"))
+	s, problems := LoadSeries(filepath.Join("..", "testdata", "demo"), nil)
 	if problems.HasErrors() {
 		t.Fatalf("demo has errors: %v", problems)
 	}
@@ -189,7 +189,7 @@ func TestParseThicknesses(t *testing.T) {
 func TestLoadDoesNotModifyInput(t *testing.T) {
 	path := filepath.Join("..", "testdata", "demo", "survey.md")
 	before, _ := os.ReadFile(path)
-	Load(filepath.Join("..", "testdata", "demo"))
+	LoadSeries(filepath.Join("..", "testdata", "demo"), nil)
 	after, _ := os.ReadFile(path)
 	if string(before) != string(after) {
 		t.Error("survey.md changed")

@@ -21,6 +21,9 @@ type Survey struct {
 	Assets    []*Asset
 	Notes     []Note    // notes before the first heading
 	Photos    []*Photo  // every JPEG found under photos/, sorted by name
+	Previous  []string  // earlier survey folders named in the front matter, relative to Dir
+	PrevLine  int       // line of the previous: key
+	History   *History  // what earlier surveys added; nil when there are none
 	Problems  []Problem // warnings found while reading (errors stop the read)
 }
 
@@ -35,6 +38,7 @@ type Asset struct {
 // Component is a shell course, a pipe circuit, a girder flange: a `## heading`.
 type Component struct {
 	Name   string
+	File   string // checklist it was read from
 	Line   int
 	Asset  string
 	Design Design
@@ -76,6 +80,7 @@ type CML struct {
 	Location  string
 	GPS       *LatLon
 	PhotoRefs []string // names relative to photos/, as written
+	Was       []string // ids this CML had in earlier surveys
 	Visits    []Visit  // oldest first; only visits with at least one reading
 }
 
@@ -83,6 +88,7 @@ type CML struct {
 type Visit struct {
 	Date       VisitDate
 	ReadingsMM []float64
+	File       string // checklist the readings come from
 	Line       int
 }
 

@@ -20,6 +20,7 @@ const (
 	colLocation
 	colGPS
 	colPhotos
+	colWas
 )
 
 type tableColumn struct {
@@ -71,10 +72,12 @@ func (r *checklistReader) columns(header ast.Node, line int) []tableColumn {
 			col.role = colGPS
 		case lower == "photos" || lower == "photo":
 			col.role = colPhotos
+		case lower == "was":
+			col.role = colWas
 		default:
 			d, ok := ParseVisitDate(name)
 			if !ok {
-				r.problems.Warnf(r.file, line, "column %q is not a date, location, gps or photos: ignored", name)
+				r.problems.Warnf(r.file, line, "column %q is not a date, location, gps, photos or was: ignored", name)
 				break
 			}
 			if seen[d.String()] {
@@ -127,6 +130,8 @@ func (r *checklistReader) row(row ast.Node, cols []tableColumn) {
 			cml.GPS = &p
 		case colPhotos:
 			cml.PhotoRefs = append(cml.PhotoRefs, strings.FieldsFunc(v, func(c rune) bool { return c == ',' || c == ' ' || c == ';' })...)
+		case colWas:
+			cml.Was = append(cml.Was, strings.FieldsFunc(v, func(c rune) bool { return c == ',' || c == ' ' || c == ';' })...)
 		case colVisit:
 			if v == "" || v == "-" || v == "—" || v == "–" {
 				break
@@ -136,7 +141,7 @@ func (r *checklistReader) row(row ast.Node, cols []tableColumn) {
 				r.problems.Errorf(r.file, line, "%s", err)
 				break
 			}
-			cml.Visits = append(cml.Visits, Visit{Date: cols[i].date, ReadingsMM: vals, Line: line})
+			cml.Visits = append(cml.Visits, Visit{Date: cols[i].date, ReadingsMM: vals, File: r.file, Line: line})
 		}
 	}
 	if cml.ID == "" {
@@ -206,14 +211,6 @@ func (r *checklistReader) finish() {
 			}
 			if len(c.CMLs) == 0 {
 				r.problems.Warnf(r.file, c.Line, "%q has no reading table", c.Name)
-			}
-			for _, m := range c.CMLs {
-				if len(m.Visits) == 0 {
-					r.problems.Warnf(r.file, m.Line, "CML %s has no readings", m.ID)
-				}
-				if d.Installed != nil && len(m.Visits) > 0 && m.Visits[0].Date.Time.Before(d.Installed.Time) {
-					r.problems.Warnf(r.file, m.Line, "CML %s has a reading dated before the installed date %s", m.ID, d.Installed)
-				}
 			}
 		}
 	}

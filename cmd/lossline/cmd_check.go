@@ -17,6 +17,7 @@ func newCheckCmd() *cobra.Command {
 		Args: exactArgs(1),
 		RunE: runCheck,
 	}
+	c.Flags().StringSlice("previous", nil, "earlier survey `DIR`s whose readings merge in (besides the front matter's previous:)")
 	addSettingFlags(c)
 	return c
 }
@@ -25,7 +26,8 @@ func runCheck(c *cobra.Command, args []string) error {
 	if _, err := loadSettings(c, args[0]); err != nil {
 		return err
 	}
-	_, problems := survey.Load(args[0])
+	previous, _ := c.Flags().GetStringSlice("previous")
+	_, problems := survey.LoadSeries(args[0], previous)
 	w := c.OutOrStdout()
 	errs := 0
 	for _, p := range problems {

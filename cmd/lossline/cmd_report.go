@@ -23,6 +23,7 @@ func newReportCmd() *cobra.Command {
 		RunE: runReport,
 	}
 	c.Flags().StringP("out", "o", "", "output `OUTDIR` (default SURVEY/report)")
+	c.Flags().StringSlice("previous", nil, "earlier survey `DIR`s whose readings merge in (besides the front matter's previous:)")
 	addSettingFlags(c)
 	return c
 }
@@ -37,7 +38,8 @@ func runReport(c *cobra.Command, args []string) error {
 	if err != nil {
 		return err
 	}
-	s, problems := survey.Load(dir)
+	previous, _ := c.Flags().GetStringSlice("previous")
+	s, problems := survey.LoadSeries(dir, previous)
 	if problems.HasErrors() {
 		return survey.InputError{Problems: problems}
 	}

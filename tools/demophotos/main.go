@@ -2,7 +2,7 @@
 // steel with a label, and EXIF time, GPS position and orientation, so the
 // fixtures are reproducible. Run from the repository root:
 //
-//	go run ./tools/demophotos -o testdata/demo/photos
+//	go run ./tools/demophotos -root testdata
 package main
 
 import (
@@ -28,6 +28,7 @@ import (
 // shot is one demo photo: what it shows, where and when it was taken, and how
 // the camera was held (EXIF orientation).
 type shot struct {
+	survey      string // survey folder under the root
 	file        string
 	label       string
 	taken       string
@@ -38,21 +39,24 @@ type shot struct {
 
 // The scenario is invented: Greyling Sound fuel depot, visit of 2026-11-18.
 var shots = []shot{
-	{"tank-t101/t101-c1-north.jpg", "T-101 course 1, CML T1-02", "2026-11-18 08:52:10", 45.602315, -61.351020, 1, 9},
-	{"tank-t101/t101-c1-nozzle.jpg", "T-101 course 1, CML T1-04 at N3", "2026-11-18 09:05:44", 45.602140, -61.350805, 6, 5},
-	{"tank-t101/t101-c2-west.jpg", "T-101 course 2, CML T2-03", "2026-11-18 09:31:02", 45.602205, -61.351240, 1, 3},
-	{"line-p220/p220-a03-soil-air.jpg", "P-220 CML A-03 soil-to-air", "2026-11-18 11:14:27", 45.601540, -61.349890, 6, 14},
-	{"line-p220/p220-a01-support.jpg", "P-220 CML A-01 at support", "2026-11-18 11:02:09", 45.601710, -61.350310, 1, 4},
-	{"line-p220/p220-b02-rack.jpg", "P-220 CML B-02 pipe rack", "2026-11-18 11:40:51", 45.601205, -61.349120, 3, 2},
-	{"bridge-fb2/fb2-g1-flange.jpg", "FB-2 girder G1 bottom flange", "2026-11-18 13:22:35", 45.600820, -61.348510, 8, 11},
-	{"overview-east.jpg", "Depot overview from east gate", "2026-11-18 08:31:00", 45.601900, -61.348200, 1, 0},
+	{"demo", "tank-t101/t101-c1-north.jpg", "T-101 course 1, CML T1-02", "2026-11-18 08:52:10", 45.602315, -61.351020, 1, 9},
+	{"demo", "tank-t101/t101-c1-nozzle.jpg", "T-101 course 1, CML T1-04 at N3", "2026-11-18 09:05:44", 45.602140, -61.350805, 6, 5},
+	{"demo", "tank-t101/t101-c2-west.jpg", "T-101 course 2, CML T2-03", "2026-11-18 09:31:02", 45.602205, -61.351240, 1, 3},
+	{"demo", "line-p220/p220-a03-soil-air.jpg", "P-220 CML A-03 soil-to-air", "2026-11-18 11:14:27", 45.601540, -61.349890, 6, 14},
+	{"demo", "line-p220/p220-a01-support.jpg", "P-220 CML A-01 at support", "2026-11-18 11:02:09", 45.601710, -61.350310, 1, 4},
+	{"demo", "line-p220/p220-b02-rack.jpg", "P-220 CML B-02 pipe rack", "2026-11-18 11:40:51", 45.601205, -61.349120, 3, 2},
+	{"demo", "bridge-fb2/fb2-g1-flange.jpg", "FB-2 girder G1 bottom flange", "2026-11-18 13:22:35", 45.600820, -61.348510, 8, 11},
+	{"demo", "overview-east.jpg", "Depot overview from east gate", "2026-11-18 08:31:00", 45.601900, -61.348200, 1, 0},
+	// Earlier surveys of the same site, for before/after pairs.
+	{"demo-2022", "p220/a3-soil-air-2022.jpg", "P-220 CML A-3 soil-to-air 2022", "2022-05-10 10:41:13", 45.601545, -61.349880, 1, 8},
+	{"demo-2021", "fb2/g1-03-2021.jpg", "FB-2 G1-03 flange 2021", "2021-06-15 14:05:50", 45.600815, -61.348520, 1, 6},
 }
 
 func main() {
-	out := flag.String("o", "testdata/demo/photos", "output folder")
+	root := flag.String("root", "testdata", "folder holding the demo survey folders")
 	flag.Parse()
 	for i, s := range shots {
-		if err := write(*out, s, uint64(i+1)); err != nil {
+		if err := write(filepath.Join(*root, s.survey, "photos"), s, uint64(i+1)); err != nil {
 			log.Fatal(err)
 		}
 	}

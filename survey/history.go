@@ -1,0 +1,265 @@
+package survey
+
+import (
+	"fmt"
+	"math"
+	"path/filepath"
+	"slices"
+	"strings"
+)
+
+// History is what earlier surveys of the same site add to the newest one.
+type History struct {
+	Earlier        []*Survey // earlier surveys, newest first
+	Dropped        []DroppedCML
+	DesignChanges  []DesignChange
+	PreviousPhotos map[*CML][]*Photo // photos of a CML in the newest earlier survey that has any
+}
+
+// DroppedCML is a CML of an earlier survey that the newest one no longer lists.
+type DroppedCML struct {
+	ID, Asset, Component string
+	Last                 Visit // its latest reading
+}
+
+// DesignChange is a nominal or required thickness that differs between surveys.
+type DesignChange struct {
+	Asset, Component, Field string
+	OldMM, NewMM            float64
+	OldFile                 string
+	OldLine, NewLine        int
+}
+
+// LoadSeries reads a survey folder and the earlier surveys it names in its
+// front matter (`previous:`, relative to the folder, followed recursively) and
+// in extra (relative to the working directory), and merges their readings into
+// the newest survey by CML id. Folders may be given in any order.
+func LoadSeries(dir string, extra []string) (*Survey, ProblemList) {
+	s, problems := Load(dir)
+	if s == nil || problems.HasErrors() {
+		return s, problems
+	}
+	seen := map[string]bool{absPath(dir): true}
+	var earlier []*Survey
+	var visit func(from *Survey, dirs []string, line int, base string)
+	visit = func(from *Survey, dirs []string, line int, base string) {
+		for _, d := range dirs {
+			if base != "" && !filepath.IsAbs(d) {
+				d = filepath.Join(base, d)
+			}
+			if seen[absPath(d)] {
+				continue
+			}
+			seen[absPath(d)] = true
+			e, p := Load(d)
+			if e == nil {
+				problems.Errorf(from.File, line, "previous survey %s cannot be read", d)
+				problems = append(problems, p...)
+				continue
+			}
+			problems = append(problems, p...)
+			if p.HasErrors() {
+				continue
+			}
+			earlier = append(earlier, e)
+			visit(e, e.Previous, e.PrevLine, e.Dir)
+		}
+	}
+	visit(s, s.Previous, s.PrevLine, dir)
+	visit(s, extra, 0, "")
+	if !problems.HasErrors() && len(earlier) > 0 {
+		problems = append(problems, Merge(s, earlier)...)
+	}
+	problems = append(problems, readingChecks(s)...)
+	problems.Sort()
+	s.Problems = problems.Warnings()
+	return s, problems
+}
+
+// readingChecks warns of CMLs without readings, or with readings older than
+// the component, once every earlier survey is merged in.
+func readingChecks(s *Survey) ProblemList {
+	var problems ProblemList
+	for _, loc := range s.AllCMLs() {
+		m, d := loc.CML, loc.Component.Design
+		if len(m.Visits) == 0 {
+			problems.Warnf(s.File, m.Line, "CML %s has no readings", m.ID)
+		} else if d.Installed != nil && m.Visits[0].Date.Time.Before(d.Installed.Time) {
+			problems.Warnf(s.File, m.Line, "CML %s has a reading dated before the installed date %s", m.ID, d.Installed)
+		}
+	}
+	return problems
+}
+
+func absPath(d string) string {
+	a, err := filepath.Abs(d)
+	if err != nil {
+		return filepath.Clean(d)
+	}
+	return a
+}
+
+// Merge adds the readings of earlier surveys to s, matching CMLs by id or by
+// an id listed in s's `was` column. The same visit in two files must hold the
+// same readings. Design data missing from s is taken from the newest earlier
+// survey that gives it; changed nominal or required thicknesses are recorded.
+func Merge(s *Survey, earlier []*Survey) ProblemList {
+	var problems ProblemList
+	slices.SortStableFunc(earlier, func(a, b *Survey) int { return b.Date.Compare(a.Date) })
+	h := &History{Earlier: earlier, PreviousPhotos: map[*CML][]*Photo{}}
+	s.History = h
+
+	byID := map[string]Located{}
+	for _, loc := range s.AllCMLs() {
+		byID[loc.CML.ID] = loc
+	}
+	for _, loc := range s.AllCMLs() {
+		for _, old := range loc.CML.Was {
+			if other, taken := byID[old]; taken && other.CML != loc.CML {
+				problems.Errorf(s.File, loc.CML.Line, "CML %s was %s, but %s is still a CML of this survey (line %d)", loc.CML.ID, old, old, other.CML.Line)
+				continue
+			}
+			byID[old] = loc
+		}
+	}
+	for _, e := range earlier {
+		if e.Date.After(s.Date) {
+			problems.Errorf(s.File, s.PrevLine, "previous survey %s is dated %s, after this survey", e.File, e.Date.Format("2006-01-02"))
+			continue
+		}
+	}
+	predecessors := map[*Component][]*Component{}
+	dropped := map[string]bool{}
+	for _, e := range earlier {
+		for _, old := range e.AllCMLs() {
+			cur, ok := byID[old.CML.ID]
+			if !ok {
+				if !dropped[old.CML.ID] && len(old.CML.Visits) > 0 {
+					dropped[old.CML.ID] = true
+					h.Dropped = append(h.Dropped, DroppedCML{ID: old.CML.ID, Asset: old.Asset.Name, Component: old.Component.Name,
+						Last: old.CML.Visits[len(old.CML.Visits)-1]})
+				}
+				continue
+			}
+			if !slices.Contains(predecessors[cur.Component], old.Component) {
+				predecessors[cur.Component] = append(predecessors[cur.Component], old.Component)
+			}
+			problems = append(problems, mergeVisits(cur, old.CML)...)
+			if _, have := h.PreviousPhotos[cur.CML]; !have && len(old.CML.PhotoRefs) > 0 {
+				h.PreviousPhotos[cur.CML] = photosNamed(e, old.CML.PhotoRefs)
+			}
+		}
+	}
+	for _, loc := range s.AllCMLs() {
+		slices.SortStableFunc(loc.CML.Visits, func(a, b Visit) int { return a.Date.Time.Compare(b.Date.Time) })
+		for _, v := range loc.CML.Visits {
+			addVisitDate(loc.Component, v.Date)
+		}
+	}
+	for _, a := range s.Assets {
+		for _, c := range a.Components {
+			h.DesignChanges = append(h.DesignChanges, inheritDesign(a, c, predecessors[c])...)
+		}
+	}
+	return problems
+}
+
+// mergeVisits adds the visits of an earlier CML row to the current CML.
+func mergeVisits(cur Located, old *CML) ProblemList {
+	var problems ProblemList
+	for _, v := range old.Visits {
+		i := slices.IndexFunc(cur.CML.Visits, func(x Visit) bool { return x.Date.Time.Equal(v.Date.Time) })
+		if i < 0 {
+			cur.CML.Visits = append(cur.CML.Visits, v)
+			continue
+		}
+		have := cur.CML.Visits[i]
+		if !sameReadings(have.ReadingsMM, v.ReadingsMM) {
+			problems.Errorf(v.File, v.Line, "CML %s, visit %s: readings %s differ from %s at %s:%d",
+				cur.CML.ID, v.Date, formatReadings(v.ReadingsMM), formatReadings(have.ReadingsMM), have.File, have.Line)
+		}
+	}
+	return problems
+}
+
+func sameReadings(a, b []float64) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	a, b = slices.Clone(a), slices.Clone(b)
+	slices.Sort(a)
+	slices.Sort(b)
+	for i := range a {
+		if math.Abs(a[i]-b[i]) > 1e-9 {
+			return false
+		}
+	}
+	return true
+}
+
+func formatReadings(mm []float64) string {
+	parts := make([]string, len(mm))
+	for i, v := range mm {
+		parts[i] = fmt.Sprintf("%.2f", v)
+	}
+	return strings.Join(parts, " ") + " mm"
+}
+
+func addVisitDate(c *Component, d VisitDate) {
+	for _, v := range c.VisitDates {
+		if v.Time.Equal(d.Time) {
+			return
+		}
+	}
+	c.VisitDates = append(c.VisitDates, d)
+	slices.SortFunc(c.VisitDates, func(a, b VisitDate) int { return a.Time.Compare(b.Time) })
+}
+
+func photosNamed(s *Survey, names []string) []*Photo {
+	var out []*Photo
+	for _, n := range names {
+		for _, p := range s.Photos {
+			if p.Name == n {
+				out = append(out, p)
+			}
+		}
+	}
+	return out
+}
+
+// inheritDesign fills c's missing design data from its predecessors (newest
+// first) and reports nominal or required thicknesses that changed.
+func inheritDesign(a *Asset, c *Component, preds []*Component) []DesignChange {
+	var changes []DesignChange
+	d := &c.Design
+	for _, p := range preds {
+		pd := p.Design
+		if d.NominalMM == nil && pd.NominalMM != nil {
+			d.NominalMM = pd.NominalMM
+		}
+		if d.Installed == nil && pd.Installed != nil {
+			d.Installed = pd.Installed
+		}
+		if d.Consequence == ConsequenceUnknown {
+			d.Consequence = pd.Consequence
+		}
+		if d.RequiredMM == nil && pd.RequiredMM != nil {
+			d.RequiredMM, d.RequiredCalc = pd.RequiredMM, pd.RequiredCalc
+		}
+	}
+	for _, field := range []string{"nominal", "required"} {
+		cur := map[string]*float64{"nominal": d.NominalMM, "required": d.RequiredMM}[field]
+		for _, p := range preds {
+			old := map[string]*float64{"nominal": p.Design.NominalMM, "required": p.Design.RequiredMM}[field]
+			if old == nil {
+				continue
+			}
+			if cur != nil && math.Abs(*old-*cur) > 1e-6 {
+				changes = append(changes, DesignChange{Asset: a.Name, Component: c.Name, Field: field, OldMM: *old, NewMM: *cur,
+					OldFile: p.File, OldLine: p.Design.Lines[field], NewLine: d.Lines[field]})
+			}
+			break // compare with the newest earlier survey that gives it
+		}
+	}
+	return changes
+}
