@@ -74,33 +74,10 @@ func day(t *time.Time) string {
 	return t.Format(dateLayout)
 }
 
-// Status words, most urgent first. Our own bands; the text carries the status.
-const (
-	statusNow     = "AT OR BELOW REQUIRED"
-	statusUnder2  = "under 2 years"
-	statusUnder5  = "2 to 5 years"
-	statusUnder10 = "5 to 10 years"
-	statusOver10  = "10 years or more"
-	statusNoLoss  = "no measurable loss"
-)
-
 // status says in words how urgent a CML is.
 func status(r wallloss.Result) string {
-	switch r.Class {
-	case wallloss.AtOrBelowRequired:
-		return statusNow
-	case wallloss.FiniteLife:
-		switch l := *r.RemainingLifeY; {
-		case l < 2:
-			return statusUnder2
-		case l < 5:
-			return statusUnder5
-		case l < 10:
-			return statusUnder10
-		}
-		return statusOver10
-	case wallloss.NoMeasurableLoss:
-		return statusNoLoss
+	if w := wallloss.WindowOf(r); w != wallloss.WindowUnknown {
+		return w.String()
 	}
 	switch {
 	case r.HasFlag(wallloss.FlagNoReadings):
@@ -113,7 +90,8 @@ func status(r wallloss.Result) string {
 
 // urgent reports whether a status is printed in bold and shaded.
 func urgent(r wallloss.Result) bool {
-	return r.Class == wallloss.AtOrBelowRequired || (r.Class == wallloss.FiniteLife && *r.RemainingLifeY < 5)
+	w := wallloss.WindowOf(r)
+	return w == wallloss.WindowNow || w == wallloss.WindowUnder2 || w == wallloss.Window2To5
 }
 
 // flagMeanings explains each flag code in the methods appendix.

@@ -19,12 +19,15 @@ import (
 
 // Options are the settings the report follows.
 type Options struct {
-	Policy    wallloss.Policy
-	Display   Display
-	Photos    PhotoSettings
-	Templates templates.Set
-	Created   time.Time // printed as the report date and written as the PDF's creation date
-	Version   string    // lossline version, printed on the cover
+	Policy  wallloss.Policy
+	Display Display
+	// AccelerationPct is the margin over the long-term rate at which a CML's
+	// latest interval counts as accelerating.
+	AccelerationPct float64
+	Photos          PhotoSettings
+	Templates       templates.Set
+	Created         time.Time // printed as the report date and written as the PDF's creation date
+	Version         string    // lossline version, printed on the cover
 }
 
 // Page geometry, mm (A4).
@@ -46,6 +49,7 @@ type doc struct {
 	opts      Options
 	u         units
 	landscape bool
+	changes   map[*survey.CML]survey.Change
 	photos    map[string]*photoEntry
 	byCML     map[*survey.CML]*survey.Assessed
 	warnings  survey.ProblemList
@@ -53,6 +57,7 @@ type doc struct {
 
 // photoEntry is a photo prepared once, however many CMLs show it.
 type photoEntry struct {
+	key   string // name the image is registered under in the PDF
 	photo *survey.Photo
 	prep  preparedPhoto
 	err   error
@@ -65,6 +70,10 @@ func PDF(s *survey.Survey, items []*survey.Assessed, opts Options) ([]byte, surv
 	d := &doc{pdf: pdf, s: s, items: items, opts: opts, u: units{opts.Display.resolve(s.Units).Thickness, opts.Display.resolve(s.Units).Rate}, photos: map[string]*photoEntry{}, byCML: map[*survey.CML]*survey.Assessed{}}
 	for _, it := range items {
 		d.byCML[it.CML] = it
+	}
+	d.changes = map[*survey.CML]survey.Change{}
+	for _, c := range survey.Changes(s, items, opts.Policy, opts.AccelerationPct) {
+		d.changes[c.Item.CML] = c
 	}
 	pdf.SetMargins(margin, margin, margin)
 	pdf.SetAutoPageBreak(true, bottomGap)
@@ -104,6 +113,7 @@ func (d *doc) sections() error {
 		return err
 	}
 	d.summary()
+	d.changesSection()
 	d.ranked()
 	for _, a := range d.s.Assets {
 		d.asset(a)

@@ -90,6 +90,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	if len(c.CMLs) > 0 {
 		d.readings(c)
 		d.results(c)
+		d.trend(c)
 	}
 	if len(c.Scope) > 0 {
 		d.heading(2, "Scope checklist")

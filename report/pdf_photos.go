@@ -5,27 +5,45 @@ import (
 	"fmt"
 
 	"github.com/go-pdf/fpdf"
+
+	"github.com/lossline/lossline/survey"
 )
 
 // photoShown is a photo placed in the report, with the CML it belongs to ("" if none).
 type photoShown struct {
 	entry *photoEntry
 	cml   string
+	label string // "Before" or "Now" in before/after pairs
 }
 
 // prepareAllPhotos reduces and registers every readable photo once. A photo
 // that cannot be decoded becomes a warning naming the file.
 func (d *doc) prepareAllPhotos() {
 	for _, ph := range d.s.Photos {
-		e := &photoEntry{photo: ph}
-		e.prep, e.err = preparePhoto(ph.Path, ph.Orientation, d.opts.Photos)
-		if e.err != nil {
-			d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", e.err)
-			continue
-		}
-		d.pdf.RegisterImageOptionsReader(ph.Name, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(e.prep.JPEG))
-		d.photos[ph.Name] = e
+		d.preparePhoto(ph, ph.Name)
 	}
+	if h := d.s.History; h != nil {
+		for _, it := range d.items {
+			for _, ph := range h.PreviousPhotos[it.CML] {
+				d.preparePhoto(ph, ph.Name+"@before")
+			}
+		}
+	}
+}
+
+// preparePhoto reduces one photo and registers it under key.
+func (d *doc) preparePhoto(ph *survey.Photo, key string) {
+	if _, done := d.photos[key]; done {
+		return
+	}
+	e := &photoEntry{key: key, photo: ph}
+	e.prep, e.err = preparePhoto(ph.Path, ph.Orientation, d.opts.Photos)
+	if e.err != nil {
+		d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", e.err)
+		return
+	}
+	d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(e.prep.JPEG))
+	d.photos[key] = e
 }
 
 // Photo grid geometry, mm.
@@ -54,7 +72,7 @@ func (d *doc) photoGrid(shown []photoShown) {
 		for j, s := range pair {
 			x := margin + float64(j)*(cellW+photoGap)
 			w, h := fit(s.entry.prep, cellW, photoMaxH)
-			p.ImageOptions(s.entry.photo.Name, x+(cellW-w)/2, y, w, h, false, fpdf.ImageOptions{ImageType: "JPG"}, 0, "")
+			p.ImageOptions(s.entry.key, x+(cellW-w)/2, y, w, h, false, fpdf.ImageOptions{ImageType: "JPG"}, 0, "")
 			p.Rect(x+(cellW-w)/2, y, w, h, "D")
 			p.SetXY(x, y+h+1.5)
 			d.font("", captionSize)
@@ -80,6 +98,9 @@ func (d *doc) caption(s photoShown) string {
 	who := "Not linked to a CML"
 	if s.cml != "" {
 		who = "CML " + s.cml
+	}
+	if s.label != "" {
+		who = s.label + ": " + who
 	}
 	taken := "time not recorded"
 	if ph.Taken != nil {

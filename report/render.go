@@ -17,7 +17,7 @@ func Render(s *survey.Survey, items []*survey.Assessed, opts Options) ([]File, s
 		return nil, nil, err
 	}
 	all := append(append(survey.ProblemList{}, s.Problems...), warnings...)
-	res := BuildResults(s, items, all)
+	res := BuildResults(s, items, survey.Changes(s, items, opts.Policy, opts.AccelerationPct), all)
 	js, err := JSON(res)
 	if err != nil {
 		return nil, nil, err

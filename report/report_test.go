@@ -30,10 +30,11 @@ func demo(t *testing.T) (*survey.Survey, []*survey.Assessed) {
 
 func testOptions() Options {
 	return Options{
-		Policy:  wallloss.DefaultPolicy,
-		Photos:  PhotoSettings{LongSide: 1600, Quality: 80},
-		Created: time.Date(2026, 11, 20, 9, 0, 0, 0, time.UTC),
-		Version: "test",
+		Policy:          wallloss.DefaultPolicy,
+		AccelerationPct: 25,
+		Photos:          PhotoSettings{LongSide: 1600, Quality: 80},
+		Created:         time.Date(2026, 11, 20, 9, 0, 0, 0, time.UTC),
+		Version:         "test",
 	}
 }
 
@@ -69,7 +70,7 @@ func TestGoldenResultsJSON(t *testing.T) {
 
 func TestCSVHasOneRowPerCML(t *testing.T) {
 	s, items := demo(t)
-	res := BuildResults(s, items, nil)
+	res := BuildResults(s, items, nil, nil)
 	b, err := CSV(res, Display{}.resolve(s.Units))
 	if err != nil {
 		t.Fatal(err)
@@ -167,5 +168,63 @@ func TestWriteFilesAtomic(t *testing.T) {
 		if strings.HasSuffix(e.Name(), ".tmp") {
 			t.Errorf("temporary file %s left behind", e.Name())
 		}
+	}
+}
+
+// The trend chart's projection ends at the computed retirement date, on the
+// required thickness.
+func TestTrendProjectionMatchesRetirement(t *testing.T) {
+	s, items := demo(t)
+	byCML := map[*survey.CML]*survey.Assessed{}
+	for _, it := range items {
+		byCML[it.CML] = it
+	}
+	checked := 0
+	for _, a := range s.Assets {
+		for _, c := range a.Components {
+			ch := buildTrendChart(c, byCML)
+			for _, series := range ch.Series {
+				var it *survey.Assessed
+				for _, m := range c.CMLs {
+					if m.ID == series.ID {
+						it = byCML[m]
+					}
+				}
+				r := it.Result
+				if r.Retirement == nil || r.Class != wallloss.FiniteLife {
+					if series.Proj != nil {
+						t.Errorf("%s: projection without a retirement date", series.ID)
+					}
+					continue
+				}
+				if series.Proj == nil || !series.Proj[1].T.Equal(*r.Retirement) || series.Proj[1].MM != *c.Design.RequiredMM ||
+					!series.Proj[0].T.Equal(*r.CurrentDate) || series.Proj[0].MM != *r.ThicknessMM {
+					t.Errorf("%s: projection %v, want %s at %.3f mm from the current reading", series.ID, series.Proj, r.Retirement.Format(dateLayout), *c.Design.RequiredMM)
+				}
+				checked++
+			}
+		}
+	}
+	if checked < 10 {
+		t.Errorf("only %d projections checked", checked)
+	}
+}
+
+func TestComparison(t *testing.T) {
+	s, items := demo(t)
+	changes := survey.Changes(s, items, wallloss.DefaultPolicy, 25)
+	text, err := Comparison(s, changes, Display{}, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"crossed-required", "accelerating", "no longer listed: CML G2-04", "design change: Transfer line P-220"} {
+		if !strings.Contains(string(text), want) {
+			t.Errorf("comparison lacks %q:\n%s", want, text)
+		}
+	}
+	b, _ := Comparison(s, changes, Display{}, true)
+	rows, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
+	if err != nil || len(rows) != 1+len(items) || rows[1][1] != "A-03" {
+		t.Errorf("CSV: %v, %d rows", err, len(rows))
 	}
 }

@@ -12,9 +12,40 @@ import (
 // Thicknesses are in mm, rates in mm/y, lives in years, whatever the survey's
 // display units; null where a value cannot be computed.
 type Results struct {
-	Survey   SurveyInfo `json:"survey"`
-	Items    []Item     `json:"items"`
-	Warnings []Warning  `json:"warnings"`
+	Survey        SurveyInfo     `json:"survey"`
+	Items         []Item         `json:"items"`
+	Dropped       []Dropped      `json:"dropped"`
+	DesignChanges []DesignChange `json:"design_changes"`
+	Warnings      []Warning      `json:"warnings"`
+}
+
+// Interval is the metal-loss rate between two consecutive visits.
+type Interval struct {
+	Start      string  `json:"start"`
+	End        string  `json:"end"`
+	RateMMPerY float64 `json:"rate_mm_per_y"`
+}
+
+// Dropped is a CML of an earlier survey that this one no longer lists.
+type Dropped struct {
+	CML         string  `json:"cml"`
+	Asset       string  `json:"asset"`
+	Component   string  `json:"component"`
+	LastDate    string  `json:"last_date"`
+	ThicknessMM float64 `json:"thickness_mm"`
+	File        string  `json:"file"`
+	Line        int     `json:"line"`
+}
+
+// DesignChange is a nominal or required thickness that changed between surveys.
+type DesignChange struct {
+	Asset     string  `json:"asset"`
+	Component string  `json:"component"`
+	Field     string  `json:"field"`
+	OldMM     float64 `json:"old_mm"`
+	NewMM     float64 `json:"new_mm"`
+	OldFile   string  `json:"old_file"`
+	OldLine   int     `json:"old_line"`
 }
 
 // SurveyInfo is the checklist's front matter.
@@ -28,33 +59,38 @@ type SurveyInfo struct {
 
 // Item is one CML, in rank order.
 type Item struct {
-	Rank              int      `json:"rank"`
-	Asset             string   `json:"asset"`
-	Component         string   `json:"component"`
-	CML               string   `json:"cml"`
-	Location          string   `json:"location"`
-	ThicknessDate     *string  `json:"thickness_date"`
-	ThicknessMM       *float64 `json:"thickness_mm"`
-	RequiredMM        *float64 `json:"required_mm"`
-	NominalMM         *float64 `json:"nominal_mm"`
-	RateLongMMPerY    *float64 `json:"rate_long_mm_per_y"`
-	RateShortMMPerY   *float64 `json:"rate_short_mm_per_y"`
-	RateMMPerY        *float64 `json:"rate_mm_per_y"`
-	RateModel         string   `json:"rate_model"`
-	RemainingLifeY    *float64 `json:"remaining_life_y"`
-	RemainingLifeLowY *float64 `json:"remaining_life_low_y"`
-	RetirementDate    *string  `json:"retirement_date"`
-	NextInspection    *string  `json:"next_inspection"`
-	NextInspectionWhy *string  `json:"next_inspection_basis"`
-	NextExternal      *string  `json:"next_external_inspection"`
-	IntervalRule      string   `json:"interval_rule"`
-	RequiredMethod    string   `json:"required_method"`
-	Estimate          bool     `json:"estimate"`
-	Consequence       *string  `json:"consequence"`
-	Flags             []string `json:"flags"`
-	Photos            []string `json:"photos"`
-	Latitude          *float64 `json:"latitude"`
-	Longitude         *float64 `json:"longitude"`
+	Rank              int        `json:"rank"`
+	Asset             string     `json:"asset"`
+	Component         string     `json:"component"`
+	CML               string     `json:"cml"`
+	Location          string     `json:"location"`
+	ThicknessDate     *string    `json:"thickness_date"`
+	ThicknessMM       *float64   `json:"thickness_mm"`
+	RequiredMM        *float64   `json:"required_mm"`
+	NominalMM         *float64   `json:"nominal_mm"`
+	RateLongMMPerY    *float64   `json:"rate_long_mm_per_y"`
+	RateShortMMPerY   *float64   `json:"rate_short_mm_per_y"`
+	RateMMPerY        *float64   `json:"rate_mm_per_y"`
+	RateModel         string     `json:"rate_model"`
+	RemainingLifeY    *float64   `json:"remaining_life_y"`
+	RemainingLifeLowY *float64   `json:"remaining_life_low_y"`
+	RetirementDate    *string    `json:"retirement_date"`
+	NextInspection    *string    `json:"next_inspection"`
+	NextInspectionWhy *string    `json:"next_inspection_basis"`
+	NextExternal      *string    `json:"next_external_inspection"`
+	IntervalRule      string     `json:"interval_rule"`
+	RequiredMethod    string     `json:"required_method"`
+	Estimate          bool       `json:"estimate"`
+	Consequence       *string    `json:"consequence"`
+	Flags             []string   `json:"flags"`
+	Photos            []string   `json:"photos"`
+	Intervals         []Interval `json:"intervals"`
+	Change            []string   `json:"change"`
+	PreviousDate      *string    `json:"previous_date"`
+	PreviousMM        *float64   `json:"previous_thickness_mm"`
+	PreviousRate      *float64   `json:"previous_rate_mm_per_y"`
+	Latitude          *float64   `json:"latitude"`
+	Longitude         *float64   `json:"longitude"`
 }
 
 // Warning is a problem that did not stop the report.
@@ -66,10 +102,14 @@ type Warning struct {
 
 // BuildResults assembles the results of an assessed survey. warnings are the
 // reader's warnings plus any raised while rendering.
-func BuildResults(s *survey.Survey, items []*survey.Assessed, warnings survey.ProblemList) Results {
+func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.Change, warnings survey.ProblemList) Results {
 	r := Results{
 		Survey: SurveyInfo{Title: s.Title, Site: s.Site, Date: s.Date.Format(dateLayout), Inspector: s.Inspector, Units: string(s.Units)},
-		Items:  []Item{}, Warnings: []Warning{},
+		Items:  []Item{}, Dropped: []Dropped{}, DesignChanges: []DesignChange{}, Warnings: []Warning{},
+	}
+	byCML := map[*survey.CML]survey.Change{}
+	for _, c := range changes {
+		byCML[c.Item.CML] = c
 	}
 	for _, it := range items {
 		res, d := it.Result, it.Component.Design
@@ -103,7 +143,30 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, warnings survey.Pr
 		if g := it.CML.GPS; g != nil {
 			item.Latitude, item.Longitude = &g.Lat, &g.Lon
 		}
+		ch := byCML[it.CML]
+		item.Intervals, item.Change = []Interval{}, append([]string{}, ch.Codes...)
+		for _, iv := range ch.Intervals {
+			item.Intervals = append(item.Intervals, Interval{Start: iv.Start.Format(dateLayout), End: iv.End.Format(dateLayout), RateMMPerY: *round(&iv.RateMMPerY, 6)})
+		}
+		if n := len(it.CML.Visits); n >= 2 {
+			prev := it.CML.Visits[n-2]
+			item.PreviousDate = dateOf(&prev.Date.Time)
+			item.PreviousMM = round(ptrTo(prev.Governing()), 4)
+			if ch.Previous != nil {
+				item.PreviousRate = round(ch.Previous.RateMMPerY, 6)
+			}
+		}
 		r.Items = append(r.Items, item)
+	}
+	if h := s.History; h != nil {
+		for _, d := range h.Dropped {
+			r.Dropped = append(r.Dropped, Dropped{CML: d.ID, Asset: d.Asset, Component: d.Component, LastDate: d.Last.Date.String(),
+				ThicknessMM: *round(ptrTo(d.Last.Governing()), 4), File: d.Last.File, Line: d.Last.Line})
+		}
+		for _, c := range h.DesignChanges {
+			r.DesignChanges = append(r.DesignChanges, DesignChange{Asset: c.Asset, Component: c.Component, Field: c.Field,
+				OldMM: *round(&c.OldMM, 4), NewMM: *round(&c.NewMM, 4), OldFile: c.OldFile, OldLine: c.OldLine})
+		}
 	}
 	for _, w := range warnings {
 		r.Warnings = append(r.Warnings, Warning{File: w.File, Line: w.Line, Message: w.Message})
@@ -123,6 +186,8 @@ func requiredMethod(d survey.Design) string {
 	}
 	return ""
 }
+
+func ptrTo(v float64) *float64 { return &v }
 
 func dateOf(t *time.Time) *string {
 	if t == nil {

@@ -22,17 +22,7 @@ func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 	latest := s.LatestVisit()
 	var items []*Assessed
 	for _, loc := range s.AllCMLs() {
-		d := loc.Component.Design
-		in := wallloss.Input{
-			NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest,
-			RateModel: d.RateModel, Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity, Metal: d.Metal,
-		}
-		if d.Installed != nil {
-			in.Installed = &d.Installed.Time
-		}
-		for _, v := range loc.CML.Visits {
-			in.Readings = append(in.Readings, wallloss.Reading{Date: v.Date.Time, ThicknessMM: v.Governing()})
-		}
+		in := inputFor(loc, loc.CML.Visits, latest)
 		items = append(items, &Assessed{Asset: loc.Asset, Component: loc.Component, CML: loc.CML, Result: wallloss.Assess(in, p)})
 	}
 	slices.SortStableFunc(items, func(a, b *Assessed) int { return wallloss.CompareUrgency(a.ranked(), b.ranked()) })
@@ -40,6 +30,22 @@ func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 		it.Rank = i + 1
 	}
 	return items
+}
+
+// inputFor builds the computation's input for a CML from the given visits.
+func inputFor(loc Located, visits []Visit, latest time.Time) wallloss.Input {
+	d := loc.Component.Design
+	in := wallloss.Input{
+		NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest,
+		RateModel: d.RateModel, Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity, Metal: d.Metal,
+	}
+	if d.Installed != nil {
+		in.Installed = &d.Installed.Time
+	}
+	for _, v := range visits {
+		in.Readings = append(in.Readings, wallloss.Reading{Date: v.Date.Time, ThicknessMM: v.Governing()})
+	}
+	return in
 }
 
 func (a *Assessed) ranked() wallloss.Ranked {

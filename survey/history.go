@@ -254,7 +254,7 @@ func inheritDesign(a *Asset, c *Component, preds []*Component) []DesignChange {
 			if old == nil {
 				continue
 			}
-			if cur != nil && math.Abs(*old-*cur) > 1e-6 {
+			if cur != nil && math.Abs(*old-*cur) > designChangeMM {
 				changes = append(changes, DesignChange{Asset: a.Name, Component: c.Name, Field: field, OldMM: *old, NewMM: *cur,
 					OldFile: p.File, OldLine: p.Design.Lines[field], NewLine: d.Lines[field]})
 			}
@@ -263,3 +263,9 @@ func inheritDesign(a *Asset, c *Component, preds []*Component) []DesignChange {
 	}
 	return changes
 }
+
+// designChangeMM is the smallest difference in nominal or required thickness
+// reported as a change: half the 0.01 mm resolution thicknesses are shown
+// with, so a value written in inches in one survey and millimetres in the
+// next does not count as a change.
+const designChangeMM = 0.005

@@ -45,6 +45,24 @@ func TestExitCodes(t *testing.T) {
 	}
 }
 
+func TestCompareCommand(t *testing.T) {
+	code, out, errOut := runCLI(t, "compare", "../../testdata/demo-2022", "../../testdata/demo")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	lines := strings.Split(out, "\n")
+	if !strings.HasPrefix(lines[0], "RANK  CML") || !strings.Contains(lines[1], "A-03") || !strings.Contains(lines[1], "crossed-required") {
+		t.Errorf("compare table:\n%s", out)
+	}
+	code, out, _ = runCLI(t, "compare", "../../testdata/demo-2022", "../../testdata/demo", "--csv")
+	if code != exitOK || !strings.HasPrefix(out, "rank,cml,asset,component,previous_date") {
+		t.Errorf("compare --csv: %d\n%s", code, out)
+	}
+	if code, _, _ := runCLI(t, "compare", "../../testdata/demo"); code != exitUsage {
+		t.Errorf("compare with one folder: exit %d", code)
+	}
+}
+
 // Settings precedence: defaults < lossline.yaml < --config < LOSSLINE_* < flags.
 func TestSettingsPrecedence(t *testing.T) {
 	dir := t.TempDir()
@@ -152,6 +170,9 @@ func TestEndToEndDemo(t *testing.T) {
 		"Required thickness: derivation", "API 653 §4.3.3.1", "ASME B31.3 §304.1.2", "Table 4.4", "set by M. Varga",
 		"API 570 Table 2, Class 1", "API 510", "fixed interval of 6 years", "ISO 9223", "(low ",
 		"no-measurable-loss", "estimate",
+		"Changes since the last visit", "CROSSED THE REQUIRED", "ACCELERATING", "Rate over each interval",
+		"CMLs no longer listed", "G2-04", "Design data that changed", "Before and after", "Before: CML A-03", "Trend",
+		"testdata/demo-2022/survey.md (2022-05-10, K. Lindqvist)",
 	} {
 		if !strings.Contains(txt, want) {
 			t.Errorf("PDF text lacks %q", want)
@@ -175,8 +196,10 @@ func TestEndToEndDemo(t *testing.T) {
 		t.Fatal(err)
 	}
 	lines := strings.Split(strings.TrimSpace(string(list)), "\n")
-	if n := len(lines) - 2; n != 8 { // two header lines, then one line per image drawn
-		t.Errorf("%d images in the PDF, want 8 (6 linked to CMLs, 2 in the appendix)\n%s", n, list)
+	// Two header lines, then one line per image drawn: 6 photos linked to CMLs, 2 in the
+	// appendix, and 2 before/after pairs (each an earlier photo and a current one shown again).
+	if n := len(lines) - 2; n != 12 {
+		t.Errorf("%d images drawn in the PDF, want 12\n%s", n, list)
 	}
 	var res struct {
 		Items []struct {

@@ -26,7 +26,10 @@ type settings struct {
 	Photos    report.PhotoSettings
 	Templates templates.Set
 	Display   report.Display
-	Sources   []string // files read, lowest precedence first
+	// AccelerationPct: a CML accelerates when its latest interval's rate is
+	// more than this percentage above its long-term rate.
+	AccelerationPct float64
+	Sources         []string // files read, lowest precedence first
 }
 
 // Setting keys (file keys; environment LOSSLINE_INTERVAL_CAP_YEARS etc.).
@@ -41,10 +44,11 @@ const (
 	keyTolerance   = "gauge-tolerance-mm"
 	keyThickUnits  = "thickness-units"
 	keyRateUnits   = "rate-units"
+	keyAccel       = "acceleration-percent"
 )
 
 // settingKeys are every key a settings file may hold.
-var settingKeys = []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates, keyRateModel, keyRule, keyTolerance, keyThickUnits, keyRateUnits}
+var settingKeys = []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates, keyRateModel, keyRule, keyTolerance, keyThickUnits, keyRateUnits, keyAccel}
 
 // addSettingFlags declares the flags that override settings files.
 func addSettingFlags(c *cobra.Command) {
@@ -58,6 +62,7 @@ func addSettingFlags(c *cobra.Command) {
 	f.String(keyRule, "half life", "interval `rule`: half life, API 570 class N, API 510, API 653 shell, API 653 bottom, fixed N years")
 	f.Float64(keyTolerance, wallloss.DefaultToleranceMM, "gauge tolerance, `mm`: smaller changes are measurement noise")
 	f.String(keyThickUnits, "", "thickness `units` shown in the report: mm or in (default: the survey's)")
+	f.Float64(keyAccel, 25, "flag a CML as accelerating when its latest interval's rate exceeds the long-term rate by more than this `percent`")
 	f.String(keyRateUnits, "", "rate `units` shown in the report: mm/y, mpy or in/y (default: mm/y for mm, mpy for in)")
 }
 
@@ -74,6 +79,7 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	v.SetDefault(keyTolerance, wallloss.DefaultToleranceMM)
 	v.SetDefault(keyThickUnits, "")
 	v.SetDefault(keyRateUnits, "")
+	v.SetDefault(keyAccel, 25.0)
 	var s settings
 	templatesBase := ""
 	for _, file := range []string{filepath.Join(surveyDir, SettingsFile), flagString(c, keyConfig)} {
@@ -116,6 +122,7 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 		return s, badInput{fmt.Errorf("%s %q is not one of %s", keyRateModel, model, strings.Join(survey.RateModels, ", "))}
 	}
 	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: model, Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
+	s.AccelerationPct = v.GetFloat64(keyAccel)
 	if t := v.GetString(keyThickUnits); t != "" {
 		u, ok := survey.ParseUnit(t)
 		if !ok {
@@ -144,6 +151,8 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 		return s, badInput{fmt.Errorf("%s must be between 0 and 50 years, not %v", keyIntervalCap, s.Policy.IntervalCapYears)}
 	case s.Photos.LongSide < 200 || s.Photos.LongSide > 8000:
 		return s, badInput{fmt.Errorf("%s must be between 200 and 8000 pixels, not %d", keyLongSide, s.Photos.LongSide)}
+	case s.AccelerationPct < 0 || s.AccelerationPct > 1000:
+		return s, badInput{fmt.Errorf("%s must be between 0 and 1000, not %v", keyAccel, s.AccelerationPct)}
 	case s.Policy.ToleranceMM < 0 || s.Policy.ToleranceMM > 2:
 		return s, badInput{fmt.Errorf("%s must be between 0 and 2 mm, not %v", keyTolerance, s.Policy.ToleranceMM)}
 	case s.Photos.Quality < 1 || s.Photos.Quality > 100:

@@ -101,6 +101,7 @@ type Result struct {
 	NextExternal      *time.Time
 	Rule              IntervalRule
 	Class             LifeClass
+	requiredMM        *float64
 	Flags             []string
 }
 
@@ -166,9 +167,13 @@ func Assess(in Input, p Policy) Result {
 		r.flag(FlagNoRequired)
 		return r
 	}
+	r.requiredMM = in.RequiredMM
 	r.dates(cur, *in.RequiredMM, in, p)
 	return r
 }
+
+// RequiredMM is the required thickness the result was computed against.
+func (r Result) RequiredMM() *float64 { return r.requiredMM }
 
 // measuredRate sets the long- and short-term rates and the governing rate of
 // the model; it reports whether that rate is a measurable loss.

@@ -1,0 +1,43 @@
+package main
+
+import (
+	"github.com/spf13/cobra"
+
+	"github.com/lossline/lossline/report"
+	"github.com/lossline/lossline/survey"
+)
+
+func newCompareCmd() *cobra.Command {
+	c := &cobra.Command{
+		Use:   "compare OLD NEW",
+		Short: "Print what changed between an earlier survey folder and a newer one",
+		Long: "Merges OLD's readings into NEW (by CML id, with NEW's was column for renamed CMLs) and prints\n" +
+			"per CML the previous and current thickness, the latest interval's rate, the repair window\n" +
+			"before and now, and what changed; then CMLs no longer listed and design data that changed.",
+		Args: exactArgs(2),
+		RunE: runCompare,
+	}
+	c.Flags().Bool("csv", false, "print CSV instead of an aligned table")
+	addSettingFlags(c)
+	return c
+}
+
+func runCompare(c *cobra.Command, args []string) error {
+	oldDir, newDir := args[0], args[1]
+	set, err := loadSettings(c, newDir)
+	if err != nil {
+		return err
+	}
+	s, problems := survey.LoadSeries(newDir, []string{oldDir})
+	if problems.HasErrors() {
+		return survey.InputError{Problems: problems}
+	}
+	items := survey.Assess(s, set.Policy)
+	asCSV, _ := c.Flags().GetBool("csv")
+	out, err := report.Comparison(s, survey.Changes(s, items, set.Policy, set.AccelerationPct), set.Display, asCSV)
+	if err != nil {
+		return err
+	}
+	_, err = c.OutOrStdout().Write(out)
+	return err
+}

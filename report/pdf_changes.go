@@ -1,0 +1,151 @@
+package report
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+// changeWords says a change code in words.
+func changeWords(code string) string {
+	switch {
+	case strings.HasPrefix(code, survey.ChangeGainedFlag):
+		return "now flagged " + strings.TrimPrefix(code, survey.ChangeGainedFlag)
+	case strings.HasPrefix(code, survey.ChangeLostFlag):
+		return "no longer flagged " + strings.TrimPrefix(code, survey.ChangeLostFlag)
+	}
+	return map[string]string{
+		survey.ChangeNewCML:          "new CML, first measured at this visit",
+		survey.ChangeNotRemeasured:   "not measured at this visit",
+		survey.ChangeCrossedRequired: "CROSSED THE REQUIRED THICKNESS",
+		survey.ChangeAccelerating:    "ACCELERATING",
+		survey.ChangeShorterWindow:   "moved into a shorter repair window",
+		survey.ChangeLongerWindow:    "moved into a longer repair window",
+	}[code]
+}
+
+// changesSection writes "Changes since the last visit": what changed per CML,
+// the rate over each interval, CMLs dropped, design changes, and before/after photos.
+func (d *doc) changesSection() {
+	var changed, withIntervals []survey.Change
+	for _, it := range d.items {
+		c := d.changes[it.CML]
+		if len(c.Codes) > 0 {
+			changed = append(changed, c)
+		}
+		if len(c.Intervals) > 0 {
+			withIntervals = append(withIntervals, c)
+		}
+	}
+	h := d.s.History
+	if len(withIntervals) == 0 && h == nil {
+		return
+	}
+	d.newPage(false)
+	d.heading(0, "Changes since the last visit")
+	intro := fmt.Sprintf("Each CML's latest visit compared with its previous one, with the same design data and settings. "+
+		"A CML is accelerating when the rate of its latest interval exceeds its long-term rate by more than %g %%. "+
+		"Thicknesses in %s, rates in %s.", d.opts.AccelerationPct, d.u.u, d.u.rateUnit)
+	if h != nil {
+		var files []string
+		for _, e := range h.Earlier {
+			files = append(files, fmt.Sprintf("%s (%s, %s)", e.File, e.Date.Format(dateLayout), e.Inspector))
+		}
+		intro += " Earlier surveys merged in: " + strings.Join(files, "; ") + "."
+	}
+	d.text(intro)
+	d.pdf.Ln(1)
+
+	d.heading(1, "What changed")
+	if len(changed) == 0 {
+		d.text("Nothing changed at any CML.")
+	} else {
+		u := string(d.u.u)
+		rows := make([][]string, len(changed))
+		styles := make([]rowStyle, len(changed))
+		for i, c := range changed {
+			it, r := c.Item, c.Item.Result
+			before, now := none, day(r.CurrentDate)+": "+d.u.thick(r.ThicknessMM)
+			if n := len(it.CML.Visits); n >= 2 && !r.HasFlag(wallloss.FlagNotMeasuredLatest) {
+				prev := it.CML.Visits[n-2]
+				before = prev.Date.String() + ": " + d.u.u.Format(prev.Governing())
+			}
+			window := status(r)
+			if c.Previous != nil {
+				window = status(*c.Previous) + " → " + window
+			}
+			var words []string
+			for _, code := range c.Codes {
+				words = append(words, changeWords(code))
+			}
+			rows[i] = []string{it.CML.ID, it.Asset.Name + " / " + it.Component.Name, before, now, window, strings.Join(words, "; ")}
+			serious := contains(c.Codes, survey.ChangeCrossedRequired) || contains(c.Codes, survey.ChangeAccelerating)
+			styles[i] = rowStyle{bold: serious, shade: serious}
+		}
+		d.table([]column{{"CML", 14, "L"}, {"Asset / component", 42, "L"}, {"Previous (" + u + ")", 24, "L"},
+			{"Now (" + u + ")", 24, "L"}, {"Repair window before → now", 34, "L"}, {"What changed", 42, "L"}},
+			rows, func(i int) rowStyle { return styles[i] }, smallSize)
+	}
+
+	if len(withIntervals) > 0 {
+		d.heading(1, "Rate over each interval")
+		rows := make([][]string, len(withIntervals))
+		for i, c := range withIntervals {
+			var parts []string
+			for _, iv := range c.Intervals {
+				parts = append(parts, fmt.Sprintf("%s → %s: %s", iv.Start.Format(dateLayout), iv.End.Format(dateLayout), d.u.rate(&iv.RateMMPerY)))
+			}
+			rows[i] = []string{c.Item.CML.ID, strings.Join(parts, "\n"), d.u.rate(c.Item.Result.RateLongMMPerY)}
+		}
+		d.table([]column{{"CML", 16, "L"}, {"Interval: rate (" + d.u.rateUnit + "; negative where the wall read thicker)", 134, "L"},
+			{"Long-term (" + d.u.rateUnit + ")", 30, "R"}}, rows, nil, smallSize)
+	}
+	if h == nil {
+		return
+	}
+	if len(h.Dropped) > 0 {
+		d.heading(1, "CMLs no longer listed")
+		rows := make([][]string, len(h.Dropped))
+		for i, x := range h.Dropped {
+			rows[i] = []string{x.ID, x.Asset + " / " + x.Component, x.Last.Date.String() + ": " + d.u.u.Format(x.Last.Governing()),
+				fmt.Sprintf("%s:%d", x.Last.File, x.Last.Line)}
+		}
+		d.table([]column{{"CML", 16, "L"}, {"Asset / component", 60, "L"}, {"Last reading (" + string(d.u.u) + ")", 34, "L"}, {"Where", 70, "L"}}, rows, nil, smallSize)
+	}
+	if len(h.DesignChanges) > 0 {
+		d.heading(1, "Design data that changed")
+		rows := make([][]string, len(h.DesignChanges))
+		for i, x := range h.DesignChanges {
+			rows[i] = []string{x.Asset + " / " + x.Component, x.Field, d.u.thick(&x.OldMM) + " → " + d.u.thick(&x.NewMM), fmt.Sprintf("%s:%d", x.OldFile, x.OldLine)}
+		}
+		d.table([]column{{"Asset / component", 70, "L"}, {"Thickness", 20, "L"}, {"Before → now (" + string(d.u.u) + ")", 30, "L"}, {"Earlier value at", 60, "L"}}, rows, nil, smallSize)
+	}
+	var pairs []photoShown
+	for _, it := range d.items {
+		c := d.changes[it.CML]
+		if len(c.PhotosBefore) == 0 || len(c.PhotosCurrent) == 0 {
+			continue
+		}
+		before, after := d.photos[c.PhotosBefore[0].Name+"@before"], d.photos[c.PhotosCurrent[0].Name]
+		if before == nil || after == nil {
+			continue
+		}
+		pairs = append(pairs, photoShown{entry: before, cml: it.CML.ID, label: "Before"}, photoShown{entry: after, cml: it.CML.ID, label: "Now"})
+	}
+	if len(pairs) > 0 {
+		d.need(photoMaxH + 20)
+		d.heading(1, "Before and after")
+		d.photoGrid(pairs)
+	}
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
