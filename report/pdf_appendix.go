@@ -12,6 +12,7 @@ func (d *doc) methods() error {
 		"IntervalCapYears": d.opts.Policy.IntervalCapYears,
 		"PhotoLongSide":    d.opts.Photos.LongSide,
 		"ToleranceMM":      d.opts.Policy.ToleranceMM,
+		"AccelerationPct":  d.opts.AccelerationPct,
 		"Flags":            flagMeanings,
 	})
 	if err != nil {
@@ -30,6 +31,7 @@ func (d *doc) methods() error {
 		{"Interval rule", d.opts.Policy.Rule.Describe(d.opts.Policy.IntervalCapYears) + " (components may set their own)"},
 		{"Half-life cap", fmt.Sprintf("%g years", d.opts.Policy.IntervalCapYears)},
 		{"Gauge tolerance", fmt.Sprintf("%g mm", d.opts.Policy.ToleranceMM)},
+		{"Acceleration", fmt.Sprintf("latest interval more than %g %% above the long-term rate", d.opts.AccelerationPct)},
 		{"Year length", "365.25 days"},
 		{"Display units", fmt.Sprintf("thickness in %s, rates in %s (1 mil = 0.001 in; results.json in mm and mm/y)", d.u.u, d.u.rateUnit)},
 		{"Photos", fmt.Sprintf("long side at most %d px, JPEG quality %d", d.opts.Photos.LongSide, d.opts.Photos.Quality)},
