@@ -290,7 +290,7 @@ func (r *checklistReader) listText(block ast.Node) {
 }
 
 // designKeys are the keys of a component's design list.
-var designKeys = []string{"nominal", "required", "installed", "consequence", "rate model", "assumed rate", "corrosivity", "metal", "interval rule"}
+var designKeys = []string{"nominal", "required", "installed", "consequence", "rate model", "assumed rate", "corrosivity", "metal", "interval rule", "repair cost", "repair", "repair thickness"}
 
 // methodInputs reads the nested `name: value` list under `required: METHOD`.
 func (r *checklistReader) methodInputs(l *ast.List) {
@@ -354,6 +354,32 @@ func (r *checklistReader) design(key, value string, line int) {
 			return
 		}
 		d.Corrosivity = c
+	case "repair cost":
+		v, err := ParseAmount(value)
+		if err != nil {
+			r.problems.Errorf(r.file, line, "repair cost: %v", err)
+			return
+		}
+		d.RepairCost = &v
+	case "repair":
+		f := strings.Fields(value)
+		if len(f) != 2 {
+			r.problems.Errorf(r.file, line, "repair: write a quantity and a priced item of the settings, e.g. `40 recoat-m2`")
+			return
+		}
+		q, err := ParseAmount(f[0])
+		if err != nil {
+			r.problems.Errorf(r.file, line, "repair: %v", err)
+			return
+		}
+		d.RepairQuantity, d.RepairItem = q, strings.ToLower(f[1])
+	case "repair thickness":
+		v, err := ParseThickness(value, r.survey.Units)
+		if err != nil {
+			r.problems.Errorf(r.file, line, "repair thickness: %q is not a thickness", value)
+			return
+		}
+		d.RepairThicknessMM = &v
 	case "metal":
 		m := strings.ToLower(strings.Join(strings.Fields(value), " "))
 		if !slices.Contains(wallloss.Metals, m) {
@@ -385,14 +411,14 @@ func (r *checklistReader) design(key, value string, line int) {
 	case "consequence":
 		c, ok := ParseConsequence(value)
 		if !ok {
-			r.problems.Errorf(r.file, line, "consequence: %q is not low, medium, high or very high", value)
+			r.problems.Errorf(r.file, line, "consequence: %q is not very low, low, medium, high or very high", value)
 			return
 		}
 		d.Consequence = c
 	}
 }
 
-// ParseConsequence reads low, medium, high or very high.
+// ParseConsequence reads very low, low, medium, high or very high.
 func ParseConsequence(s string) (Consequence, bool) {
 	s = strings.Join(strings.Fields(strings.ToLower(s)), " ")
 	for i, name := range consequenceNames {

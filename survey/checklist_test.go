@@ -54,7 +54,7 @@ func TestBrokenListsEveryProblem(t *testing.T) {
 		`19: photo "gone.jpg" of CML C1 is not in`,
 		`20: CML C1 is listed twice (first at line 19)`,
 		`22: warning: "Course 2" has no required thickness`,
-		`25: consequence: "severe" is not low, medium, high or very high`,
+		`25: consequence: "severe" is not very low, low, medium, high or very high`,
 		`29: reading "abc" is not a number`,
 	}
 	if len(got) != len(want) {

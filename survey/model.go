@@ -68,6 +68,13 @@ type Design struct {
 	Corrosivity       wallloss.Corrosivity   // ISO 9223 category, single-visit estimate
 	Metal             string                 // of the atmospheric estimate; "" for carbon steel
 	Rule              *wallloss.IntervalRule // nil for the settings' rule
+
+	// Repair for planning: a cost as written, or a quantity of a priced item
+	// of the settings; and the thickness a repair restores (nominal if nil).
+	RepairCost        *float64
+	RepairQuantity    float64
+	RepairItem        string
+	RepairThicknessMM *float64
 }
 
 // RateModels are the rate models a component or the settings may choose.
@@ -135,16 +142,17 @@ type Note struct {
 // Consequence is the consequence-of-failure class written in the design list.
 type Consequence int
 
-// Consequence classes, lowest first. ConsequenceUnknown sorts below Low.
+// Consequence classes, lowest first. ConsequenceUnknown sorts below VeryLow.
 const (
 	ConsequenceUnknown Consequence = iota
+	ConsequenceVeryLow
 	ConsequenceLow
 	ConsequenceMedium
 	ConsequenceHigh
 	ConsequenceVeryHigh
 )
 
-var consequenceNames = []string{"", "low", "medium", "high", "very high"}
+var consequenceNames = []string{"", "very low", "low", "medium", "high", "very high"}
 
 // String returns the class as written in checklists ("" when unknown).
 func (c Consequence) String() string { return consequenceNames[c] }

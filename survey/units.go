@@ -147,3 +147,21 @@ func ParseRate(s string, def Unit) (float64, error) {
 	}
 	return 0, fmt.Errorf("%q: unknown rate unit %q (use mm/y, in/y or mpy)", s, unit)
 }
+
+// ParseAmount reads a non-negative amount of money or a quantity: "12000",
+// "12 000", "12_000", "85.50"; a trailing currency word is ignored
+// ("12000 EUR").
+func ParseAmount(s string) (float64, error) {
+	f := strings.Fields(s)
+	if len(f) > 1 {
+		if _, err := strconv.ParseFloat(f[len(f)-1], 64); err != nil {
+			f = f[:len(f)-1] // a currency name
+		}
+	}
+	t := strings.ReplaceAll(strings.Join(f, ""), "_", "")
+	v, err := strconv.ParseFloat(t, 64)
+	if err != nil || v < 0 {
+		return 0, fmt.Errorf("%q is not an amount such as 12000", s)
+	}
+	return v, nil
+}

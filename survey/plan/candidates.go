@@ -1,0 +1,131 @@
+package plan
+
+import (
+	"fmt"
+	"math"
+	"time"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+// Costs are the repair prices of the settings.
+type Costs struct {
+	Currency string
+	Unit     map[string]float64 // price per unit of a named repair item ("recoat-m2": 85)
+}
+
+// Candidate is one component's repair: what it costs, by when it must be done
+// and the CMLs it resets.
+type Candidate struct {
+	Source    string // survey title, to tell assets of several surveys apart
+	Asset     string
+	Component *survey.Component
+	Cost      float64
+	CostBasis string
+	ResetMM   float64 // thickness its CMLs have after the repair
+	Deadline  *time.Time
+	Mandatory bool // a CML is at or below required now
+	CMLs      []*survey.Assessed
+}
+
+// Name is "asset / component".
+func (c *Candidate) Name() string { return c.Asset + " / " + c.Component.Name }
+
+// NoCost is a component that cannot be planned: the checklist gives no repair cost.
+type NoCost struct {
+	Source, Asset, Component string
+	Reason                   string
+}
+
+// Candidates groups assessed CMLs into one candidate repair per component
+// with a cost.
+func Candidates(source string, items []*survey.Assessed, costs Costs) ([]*Candidate, []NoCost) {
+	var out []*Candidate
+	var missing []NoCost
+	byComp := map[*survey.Component]*Candidate{}
+	for _, it := range items {
+		c := byComp[it.Component]
+		if c == nil {
+			d := it.Component.Design
+			cost, basis, err := costOf(d, costs)
+			if err != nil {
+				missing = append(missing, NoCost{source, it.Asset.Name, it.Component.Name, err.Error()})
+				byComp[it.Component] = &Candidate{} // mark as seen
+				continue
+			}
+			reset := 0.0
+			switch {
+			case d.RepairThicknessMM != nil:
+				reset = *d.RepairThicknessMM
+			case d.NominalMM != nil:
+				reset = *d.NominalMM
+			}
+			c = &Candidate{Source: source, Asset: it.Asset.Name, Component: it.Component, Cost: cost, CostBasis: basis, ResetMM: reset}
+			byComp[it.Component] = c
+			out = append(out, c)
+		}
+		if c.Component == nil {
+			continue
+		}
+		c.CMLs = append(c.CMLs, it)
+		r := it.Result
+		if r.Class == wallloss.AtOrBelowRequired {
+			c.Mandatory = true
+		}
+		if r.Retirement != nil && (c.Deadline == nil || r.Retirement.Before(*c.Deadline)) {
+			c.Deadline = r.Retirement
+		}
+	}
+	return out, missing
+}
+
+func costOf(d survey.Design, costs Costs) (float64, string, error) {
+	switch {
+	case d.RepairCost != nil:
+		return *d.RepairCost, "as written", nil
+	case d.RepairItem != "":
+		price, ok := costs.Unit[d.RepairItem]
+		if !ok {
+			return 0, "", fmt.Errorf("no unit cost %q in the settings", d.RepairItem)
+		}
+		return d.RepairQuantity * price, fmt.Sprintf("%g %s × %g", d.RepairQuantity, d.RepairItem, price), nil
+	}
+	return 0, "", fmt.Errorf("no repair cost in the checklist")
+}
+
+// RiskAt is the candidate's total risk score (Σ likelihood × consequence of
+// its CMLs) at time t, the walls having kept thinning at their rates, and the
+// score right after a repair at t.
+func (c *Candidate) RiskAt(t time.Time) (before, after int) {
+	for _, it := range c.CMLs {
+		cons := ConsequenceLevel(c.Component.Design.Consequence)
+		r := it.Result
+		life := lifeOf(r)
+		if r.CurrentDate != nil && !math.IsNaN(life) && !math.IsInf(life, 1) {
+			life = max(life-wallloss.YearsBetween(*r.CurrentDate, t), 0)
+		}
+		before += int(LikelihoodOfLife(life)) * cons
+		after += int(LikelihoodOfLife(c.lifeAfterRepair(r))) * cons
+	}
+	return before, after
+}
+
+// lifeAfterRepair is the remaining life of a CML reset to ResetMM, at the rate
+// its dates use (the upper bound for a fitted rate).
+func (c *Candidate) lifeAfterRepair(r wallloss.Result) float64 {
+	req := r.RequiredMM()
+	rate := r.RateMMPerY
+	if r.RateUpperMMPerY != nil {
+		rate = r.RateUpperMMPerY
+	}
+	switch {
+	case req == nil || rate == nil || c.ResetMM == 0:
+		return math.NaN()
+	case c.ResetMM <= *req:
+		return 0
+	case *rate == 0:
+		return math.Inf(1)
+	}
+	return (c.ResetMM - *req) / *rate
+}

@@ -1,0 +1,125 @@
+package plan
+
+import (
+	"math"
+	"testing"
+	"time"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+func day(s string) time.Time {
+	t, _ := time.Parse("2006-01-02", s)
+	return t
+}
+
+func f(v float64) *float64 { return &v }
+
+// Risk bands at their boundaries (lossline's own table, stated in the report).
+func TestLikelihoodBands(t *testing.T) {
+	for _, c := range []struct {
+		life float64
+		want Likelihood
+	}{
+		{0, AlmostCertain}, {0.999, AlmostCertain}, {1, Likely}, {2.999, Likely}, {3, Possible}, {4.999, Possible},
+		{5, Unlikely}, {9.999, Unlikely}, {10, Rare}, {math.Inf(1), Rare}, {math.NaN(), Possible},
+	} {
+		if got := LikelihoodOfLife(c.life); got != c.want {
+			t.Errorf("life %v: %v, want %v", c.life, got, c.want)
+		}
+	}
+	for _, c := range []struct {
+		l    Likelihood
+		cons int
+		want string
+	}{
+		{Rare, 4, "low"}, {Rare, 5, "medium"}, {Possible, 3, "medium"}, {Unlikely, 5, "high"}, {Likely, 3, "high"},
+		{Possible, 5, "very high"}, {AlmostCertain, 3, "very high"}, {AlmostCertain, 5, "very high"},
+	} {
+		if got := (Risk{c.l, c.cons}).Level(); got != c.want {
+			t.Errorf("%v × %d = %d: %s, want %s", c.l, c.cons, c.l*Likelihood(c.cons), got, c.want)
+		}
+	}
+	if ConsequenceLevel(survey.ConsequenceUnknown) != 4 {
+		t.Error("a consequence not given is taken as high")
+	}
+}
+
+// A fitted rate's lower confidence bound raises the likelihood.
+func TestLikelihoodUsesLowerBound(t *testing.T) {
+	r := wallloss.Result{Class: wallloss.FiniteLife, RemainingLifeY: f(6), RemainingLifeLowY: f(4)}
+	if LikelihoodOf(r) != Possible {
+		t.Errorf("central 6 y, lower bound 4 y: %v, want possible", LikelihoodOf(r))
+	}
+}
+
+// candidate builds a one-CML component: thickness now, rate, required, cost.
+func candidate(name string, cost, nowMM, rate, reqMM float64, cons survey.Consequence) *Candidate {
+	readings := []wallloss.Reading{{Date: day("2021-01-01"), ThicknessMM: nowMM + 5*rate}, {Date: day("2026-01-01"), ThicknessMM: nowMM}}
+	res := wallloss.Assess(wallloss.Input{Readings: readings, RequiredMM: &reqMM}, wallloss.Policy{IntervalCapYears: 10})
+	comp := &survey.Component{Name: name, Design: survey.Design{Consequence: cons, RepairCost: &cost, NominalMM: f(10)}}
+	it := &survey.Assessed{Asset: &survey.Asset{Name: "A"}, Component: comp, CML: &survey.CML{ID: name}, Result: res}
+	cands, _ := Candidates("s", []*survey.Assessed{it}, Costs{})
+	return cands[0]
+}
+
+func names(cs []Choice) []string {
+	var out []string
+	for _, c := range cs {
+		out = append(out, c.Candidate.Component.Name)
+	}
+	return out
+}
+
+func TestSingleYear(t *testing.T) {
+	start := day("2026-01-01")
+	below := candidate("below", 80, 4.9, 0.2, 5, survey.ConsequenceLow)      // at or below required
+	risky := candidate("risky", 50, 5.3, 0.2, 5, survey.ConsequenceVeryHigh) // 1.5 y left: likely × 5
+	calm := candidate("calm", 40, 9, 0.1, 5, survey.ConsequenceLow)          // 40 y: rare
+	// Anything at or below required comes first even if another buys more.
+	p := Single([]*Candidate{below, risky, calm}, start, 100)
+	if got := names(p.Chosen); len(got) != 1 || got[0] != "below" {
+		t.Errorf("chosen %v, want [below]", got)
+	}
+	// A budget that exactly fits both.
+	p = Single([]*Candidate{below, risky}, start, 130)
+	if len(p.Chosen) != 2 || p.Spent[0] != 130 || len(p.Deferred) != 0 {
+		t.Errorf("exact fit: %+v", p)
+	}
+	// Zero budget: nothing funded, and the plan says the repairs at or below required do not fit.
+	p = Single([]*Candidate{below, risky, calm}, start, 0)
+	if len(p.Chosen) != 0 || len(p.Deferred) != 3 || p.MandatoryOver != 80 {
+		t.Errorf("zero budget: chosen %v, deferred %d, over %v", names(p.Chosen), len(p.Deferred), p.MandatoryOver)
+	}
+	// The risk a deferred repair still carries, at the end of the plan, most first:
+	// risky has 0.5 y left by then (almost certain × very high = 25), below 5 × 2 = 10.
+	if d := p.Deferred; d[0].Candidate.Component.Name != "risky" || d[0].RiskBefore != 25 || d[1].RiskBefore != 10 {
+		t.Errorf("deferred %v with risks %d, %d", names(d), d[0].RiskBefore, d[1].RiskBefore)
+	}
+}
+
+func TestMultiYear(t *testing.T) {
+	start := day("2026-01-01")
+	// Retires in about 1.5 years (deadline in plan year 2), costs more than any one year's budget.
+	big := candidate("big", 100, 5.3, 0.2, 5, survey.ConsequenceHigh)
+	p := MultiYear([]*Candidate{big}, start, []float64{50, 50, 50})
+	if len(p.Uncovered) != 1 || p.Uncovered[0].Money != 50 {
+		t.Fatalf("uncovered %+v, want big short by 50", p.Uncovered)
+	}
+	if len(p.Chosen) != 0 || len(p.Deferred) != 1 {
+		t.Errorf("chosen %v deferred %d", names(p.Chosen), len(p.Deferred))
+	}
+	// With 100 in year 2, it is placed there, before its deadline.
+	p = MultiYear([]*Candidate{big}, start, []float64{50, 100, 50})
+	if len(p.Chosen) != 1 || p.Chosen[0].Year != 2 || len(p.Uncovered) != 0 {
+		t.Errorf("chosen %+v", p.Chosen)
+	}
+	// Risk is recomputed each year: 6 years left now (unlikely), 4 at the start of year 3 (possible).
+	slow := candidate("slow", 10, 6.2, 0.2, 5, survey.ConsequenceMedium)
+	b1, _ := slow.RiskAt(start)
+	b3, _ := slow.RiskAt(wallloss.AddYears(start, 2))
+	if b1 != int(Unlikely)*3 || b3 != int(Possible)*3 {
+		t.Errorf("risk of slow: %d now, %d in year 3; want %d and %d", b1, b3, int(Unlikely)*3, int(Possible)*3)
+	}
+}

@@ -1,0 +1,165 @@
+package plan
+
+import (
+	"math"
+	"slices"
+	"time"
+
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+// Choice is a candidate placed in a plan year (or deferred past the plan).
+type Choice struct {
+	Candidate  *Candidate
+	Year       int // 1 = the first plan year; 0 when deferred
+	RiskBefore int // at the start of its year (deferred: at the end of the plan)
+	RiskAfter  int
+	Why        string
+}
+
+// Reduction is the risk score the repair removes.
+func (c Choice) Reduction() int { return c.RiskBefore - c.RiskAfter }
+
+// Shortfall is a component whose repair no budget up to its deadline covers.
+type Shortfall struct {
+	Candidate *Candidate
+	Money     float64 // what the best year before the deadline lacks
+}
+
+// Plan is the repairs funded year by year and what is left over.
+type Plan struct {
+	Start     time.Time
+	Budgets   []float64 // per plan year
+	Spent     []float64
+	Chosen    []Choice
+	Deferred  []Choice
+	Uncovered []Shortfall
+	// MandatoryCost is the cost of repairs at or below required; over the
+	// first year's budget by MandatoryOver (0 when they fit).
+	MandatoryCost, MandatoryOver float64
+	Solutions                    []Solution // the knapsack of each year
+}
+
+// Single plans one year: repairs of components at or below required first;
+// then the set of the others that removes the most risk within what is left.
+func Single(cands []*Candidate, start time.Time, budget float64) Plan {
+	return schedule(cands, start, []float64{budget})
+}
+
+// MultiYear plans len(budgets) years. Components whose retirement date falls
+// inside the plan are placed first, in order of that date, each in the first
+// year whose remaining budget covers it; one that no year up to its deadline
+// can pay for is named with the money missing. Each year's remaining budget
+// then buys the most risk reduction among the rest, with risk recomputed at
+// the start of that year as walls keep thinning. Unspent money is not carried
+// over.
+func MultiYear(cands []*Candidate, start time.Time, budgets []float64) Plan {
+	return schedule(cands, start, budgets)
+}
+
+func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
+	p := Plan{Start: start, Budgets: budgets, Spent: make([]float64, len(budgets))}
+	years := len(budgets)
+	left := slices.Clone(budgets)
+	done := map[*Candidate]bool{}
+	yearStart := func(y int) time.Time { return wallloss.AddYears(start, float64(y-1)) }
+	place := func(c *Candidate, y int, why string) {
+		before, after := c.RiskAt(yearStart(y))
+		p.Chosen = append(p.Chosen, Choice{Candidate: c, Year: y, RiskBefore: before, RiskAfter: after, Why: why})
+		left[y-1] -= c.Cost
+		p.Spent[y-1] += c.Cost
+		done[c] = true
+	}
+
+	// Repairs at or below required come first, in year 1.
+	var mandatory []*Candidate
+	for _, c := range cands {
+		if c.Mandatory {
+			mandatory = append(mandatory, c)
+			p.MandatoryCost += c.Cost
+		}
+	}
+	if p.MandatoryCost > left[0] {
+		p.MandatoryOver = p.MandatoryCost - left[0]
+		sol := solveYear(mandatory, left[0], yearStart(1))
+		for _, i := range sol.Chosen {
+			place(mandatory[i], 1, "at or below required")
+		}
+		p.Solutions = append(p.Solutions, sol)
+	} else {
+		for _, c := range mandatory {
+			place(c, 1, "at or below required")
+		}
+	}
+
+	// Deadlines inside the plan, earliest first.
+	var due []*Candidate
+	for _, c := range cands {
+		if !done[c] && c.Deadline != nil && deadlineYear(start, *c.Deadline) <= years {
+			due = append(due, c)
+		}
+	}
+	slices.SortStableFunc(due, func(a, b *Candidate) int { return a.Deadline.Compare(*b.Deadline) })
+	for _, c := range due {
+		k := deadlineYear(start, *c.Deadline)
+		placed := false
+		for y := 1; y <= k; y++ {
+			if left[y-1] >= c.Cost {
+				place(c, y, "before its retirement date "+c.Deadline.Format("2006-01-02"))
+				placed = true
+				break
+			}
+		}
+		if !placed {
+			best := 0.0
+			for y := 1; y <= k; y++ {
+				best = math.Max(best, left[y-1])
+			}
+			p.Uncovered = append(p.Uncovered, Shortfall{Candidate: c, Money: c.Cost - best})
+		}
+	}
+
+	// Fill each year with the most risk reduction for what is left.
+	for y := 1; y <= years; y++ {
+		var pool []*Candidate
+		for _, c := range cands {
+			if !done[c] && !(c.Mandatory && p.MandatoryOver > 0 && y == 1) {
+				pool = append(pool, c)
+			}
+		}
+		sol := solveYear(pool, left[y-1], yearStart(y))
+		for _, i := range sol.Chosen {
+			place(pool[i], y, "most risk reduction for the money")
+		}
+		p.Solutions = append(p.Solutions, sol)
+	}
+	end := yearStart(years + 1)
+	for _, c := range cands {
+		if !done[c] {
+			before, after := c.RiskAt(end)
+			p.Deferred = append(p.Deferred, Choice{Candidate: c, RiskBefore: before, RiskAfter: after, Why: "deferred"})
+		}
+	}
+	slices.SortStableFunc(p.Deferred, func(a, b Choice) int { return b.RiskBefore - a.RiskBefore })
+	return p
+}
+
+// solveYear runs the knapsack on a year's candidates, valued by the risk each
+// removes at that date; money in whole currency units (costs rounded up).
+func solveYear(pool []*Candidate, budget float64, at time.Time) Solution {
+	items := make([]Item, len(pool))
+	for i, c := range pool {
+		before, after := c.RiskAt(at)
+		items[i] = Item{Cost: int64(math.Ceil(c.Cost)), Value: int64(before - after)}
+	}
+	return Solve(items, int64(math.Floor(budget)))
+}
+
+// deadlineYear is the plan year (1-based) in which a date falls; dates before
+// the start fall in year 1.
+func deadlineYear(start, deadline time.Time) int {
+	if !deadline.After(start) {
+		return 1
+	}
+	return 1 + int(math.Floor(wallloss.YearsBetween(start, deadline)))
+}
