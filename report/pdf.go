@@ -25,6 +25,7 @@ type Options struct {
 	// latest interval counts as accelerating.
 	AccelerationPct float64
 	Photos          PhotoSettings
+	Plan            PlanSettings // a repair plan is drawn when Plan.Budget > 0
 	Templates       templates.Set
 	Created         time.Time // printed as the report date and written as the PDF's creation date
 	Version         string    // lossline version, printed on the cover
@@ -114,6 +115,8 @@ func (d *doc) sections() error {
 	}
 	d.summary()
 	d.changesSection()
+	d.riskSection()
+	d.planSection()
 	d.ranked()
 	for _, a := range d.s.Assets {
 		d.asset(a)

@@ -5,6 +5,7 @@ import (
 	"time"
 
 	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/plan"
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
@@ -82,6 +83,9 @@ type Item struct {
 	RequiredMethod    string     `json:"required_method"`
 	Estimate          bool       `json:"estimate"`
 	Consequence       *string    `json:"consequence"`
+	Likelihood        string     `json:"likelihood"`
+	RiskScore         int        `json:"risk_score"`
+	RiskLevel         string     `json:"risk_level"`
 	Flags             []string   `json:"flags"`
 	Photos            []string   `json:"photos"`
 	Intervals         []Interval `json:"intervals"`
@@ -143,6 +147,8 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 		if g := it.CML.GPS; g != nil {
 			item.Latitude, item.Longitude = &g.Lat, &g.Lon
 		}
+		risk := plan.RiskOf(it)
+		item.Likelihood, item.RiskScore, item.RiskLevel = risk.Likelihood.String(), risk.Score(), risk.Level()
 		ch := byCML[it.CML]
 		item.Intervals, item.Change = []Interval{}, append([]string{}, ch.Codes...)
 		for _, iv := range ch.Intervals {

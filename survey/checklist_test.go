@@ -233,6 +233,8 @@ func TestDesignProblems(t *testing.T) {
 		{"interval rule", "- interval rule: API 570 class 7\n", `survey.md:9: interval rule "API 570 class 7" is not one of`},
 		{"corrosivity", "- corrosivity: C9\n", `survey.md:9: corrosivity "C9" is not an ISO 9223 category`},
 		{"assumed rate", "- assumed rate: fast\n", `survey.md:9: assumed rate: "fast" is not a rate`},
+		{"repair without item", "- repair: 40\n", "survey.md:9: repair: write a quantity and a priced item"},
+		{"repair cost", "- repair cost: lots\n", `survey.md:9: repair cost: "lots" is not an amount`},
 		{"required above nominal by method", "- required: section loss\n  - allowed section loss: 140 %\n", "survey.md:9: required: allowed section loss must be between 0 and 100 %"},
 	} {
 		src := head + c.list + "\n| CML | 2024-01-01 |\n|---|---|\n| A | 9 |\n"
@@ -288,5 +290,18 @@ func TestReadmeMethodSnippets(t *testing.T) {
 	}
 	if n != 4 {
 		t.Errorf("%d method snippets in README, want 4", n)
+	}
+}
+
+func TestParseAmount(t *testing.T) {
+	for in, want := range map[string]float64{"12000": 12000, "12 000": 12000, "12_000": 12000, "85.5": 85.5, "12000 EUR": 12000, "6 500 EUR": 6500} {
+		if got, err := ParseAmount(in); err != nil || got != want {
+			t.Errorf("ParseAmount(%q) = %v %v, want %v", in, got, err, want)
+		}
+	}
+	for _, bad := range []string{"", "-5", "lots", "12,000.5.1"} {
+		if _, err := ParseAmount(bad); err == nil {
+			t.Errorf("ParseAmount(%q): no error", bad)
+		}
 	}
 }

@@ -63,6 +63,40 @@ func TestCompareCommand(t *testing.T) {
 	}
 }
 
+// lossline plan prints the plan the demo report carries (same budget from lossline.yaml).
+func TestPlanCommand(t *testing.T) {
+	code, out, errOut := runCLI(t, "plan", "../../testdata/demo")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	for _, want := range []string{
+		"Transfer line P-220 / Circuit P-220-A (above ground, coastal exposure)  34 200", "at or below required",
+		"Year 1 (from 2026-11-18): budget 60 000 EUR, spent 49 200.", "Each year's selection is optimal",
+	} {
+		if !strings.Contains(out, want) {
+			t.Errorf("plan output lacks %q:\n%s", want, out)
+		}
+	}
+	// A budget that cannot pay for the repair at or below required says so plainly.
+	_, out, _ = runCLI(t, "plan", "../../testdata/demo", "--budget", "30000", "--plan-years", "1")
+	if !strings.Contains(out, "alone cost 34 200 EUR, 4 200 more than the first year's budget") {
+		t.Errorf("over-budget plan:\n%s", out)
+	}
+	// CSV: plain numbers.
+	_, out, _ = runCLI(t, "plan", "../../testdata/demo", "--csv")
+	if !strings.HasPrefix(out, "year,asset / component,cost_eur") || !strings.Contains(out, ",34200,45,20,25,") {
+		t.Errorf("plan --csv:\n%s", out)
+	}
+	// Several surveys in one plan; components without a repair cost are named.
+	_, out, _ = runCLI(t, "plan", "../../testdata/demo", "../../testdata/demo-2021")
+	if !strings.Contains(out, "Footbridge FB-2 / Girder G1 bottom flange is not in the plan: no repair cost in the checklist.") {
+		t.Errorf("plan of two surveys:\n%s", out)
+	}
+	if code, _, _ := runCLI(t, "plan"); code != exitUsage {
+		t.Errorf("plan without folders: exit %d", code)
+	}
+}
+
 // Settings precedence: defaults < lossline.yaml < --config < LOSSLINE_* < flags.
 func TestSettingsPrecedence(t *testing.T) {
 	dir := t.TempDir()
@@ -173,6 +207,8 @@ func TestEndToEndDemo(t *testing.T) {
 		"Changes since the last visit", "CROSSED THE REQUIRED", "ACCELERATING", "Rate over each interval",
 		"CMLs no longer listed", "G2-04", "Design data that changed", "Before and after", "Before: CML A-03", "Trend",
 		"testdata/demo-2022/survey.md (2022-05-10, K. Lindqvist)",
+		"Risk", "Components by risk", "almost certain", "Repair plan", "Funded", "Deferred, with the risk they still carry",
+		"Year 1 (from 2026-11-18): budget 60 000 EUR, spent 49 200.",
 	} {
 		if !strings.Contains(txt, want) {
 			t.Errorf("PDF text lacks %q", want)

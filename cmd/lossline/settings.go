@@ -13,6 +13,7 @@ import (
 
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/plan"
 	"github.com/lossline/lossline/survey/wallloss"
 	"github.com/lossline/lossline/templates"
 )
@@ -29,7 +30,8 @@ type settings struct {
 	// AccelerationPct: a CML accelerates when its latest interval's rate is
 	// more than this percentage above its long-term rate.
 	AccelerationPct float64
-	Sources         []string // files read, lowest precedence first
+	Plan            report.PlanSettings // Budget 0: no plan
+	Sources         []string            // files read, lowest precedence first
 }
 
 // Setting keys (file keys; environment LOSSLINE_INTERVAL_CAP_YEARS etc.).
@@ -45,10 +47,15 @@ const (
 	keyThickUnits  = "thickness-units"
 	keyRateUnits   = "rate-units"
 	keyAccel       = "acceleration-percent"
+	keyCurrency    = "currency"
+	keyUnitCosts   = "unit-costs"
+	keyBudget      = "budget"
+	keyPlanYears   = "plan-years"
+	keyPerYear     = "budget-per-year"
 )
 
 // settingKeys are every key a settings file may hold.
-var settingKeys = []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates, keyRateModel, keyRule, keyTolerance, keyThickUnits, keyRateUnits, keyAccel}
+var settingKeys = []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates, keyRateModel, keyRule, keyTolerance, keyThickUnits, keyRateUnits, keyAccel, keyCurrency, keyBudget, keyPlanYears, keyPerYear}
 
 // addSettingFlags declares the flags that override settings files.
 func addSettingFlags(c *cobra.Command) {
@@ -63,6 +70,10 @@ func addSettingFlags(c *cobra.Command) {
 	f.Float64(keyTolerance, wallloss.DefaultToleranceMM, "gauge tolerance, `mm`: smaller changes are measurement noise")
 	f.String(keyThickUnits, "", "thickness `units` shown in the report: mm or in (default: the survey's)")
 	f.Float64(keyAccel, 25, "flag a CML as accelerating when its latest interval's rate exceeds the long-term rate by more than this `percent`")
+	f.String(keyCurrency, "currency units", "`name` of the currency of repair costs and budgets")
+	f.Float64(keyBudget, 0, "repair budget of the first plan year, in the currency (0: no plan in the report)")
+	f.Int(keyPlanYears, 1, "`years` the repair plan covers")
+	f.Float64(keyPerYear, 0, "repair budget of each later plan year (default: the first year's)")
 	f.String(keyRateUnits, "", "rate `units` shown in the report: mm/y, mpy or in/y (default: mm/y for mm, mpy for in)")
 }
 
@@ -80,6 +91,10 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	v.SetDefault(keyThickUnits, "")
 	v.SetDefault(keyRateUnits, "")
 	v.SetDefault(keyAccel, 25.0)
+	v.SetDefault(keyCurrency, "currency units")
+	v.SetDefault(keyBudget, 0.0)
+	v.SetDefault(keyPlanYears, 1)
+	v.SetDefault(keyPerYear, 0.0)
 	var s settings
 	templatesBase := ""
 	for _, file := range []string{filepath.Join(surveyDir, SettingsFile), flagString(c, keyConfig)} {
@@ -123,6 +138,18 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	}
 	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: model, Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
 	s.AccelerationPct = v.GetFloat64(keyAccel)
+	s.Plan = report.PlanSettings{Budget: v.GetFloat64(keyBudget), PerYear: v.GetFloat64(keyPerYear), Years: v.GetInt(keyPlanYears),
+		Costs: plan.Costs{Currency: v.GetString(keyCurrency), Unit: map[string]float64{}}}
+	for k := range v.GetStringMap(keyUnitCosts) {
+		price := v.GetFloat64(keyUnitCosts + "." + k)
+		if price < 0 {
+			return s, badInput{fmt.Errorf("%s: %s must not be negative", keyUnitCosts, k)}
+		}
+		s.Plan.Costs.Unit[strings.ToLower(k)] = price
+	}
+	if s.Plan.Budget < 0 || s.Plan.PerYear < 0 || s.Plan.Years < 1 || s.Plan.Years > 50 {
+		return s, badInput{fmt.Errorf("%s and %s must not be negative, %s between 1 and 50", keyBudget, keyPerYear, keyPlanYears)}
+	}
 	if t := v.GetString(keyThickUnits); t != "" {
 		u, ok := survey.ParseUnit(t)
 		if !ok {
@@ -165,7 +192,7 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 // misspelt key is not silently ignored.
 func unknownKeys(v *viper.Viper, file string) error {
 	for _, k := range v.AllKeys() {
-		if !slices.Contains(settingKeys, k) {
+		if !slices.Contains(settingKeys, k) && !strings.HasPrefix(k, keyUnitCosts+".") {
 			return badInput{fmt.Errorf("%s: unknown setting %q (known: %s)", file, k, strings.Join(settingKeys, ", "))}
 		}
 	}

@@ -72,30 +72,26 @@ func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
 	}
 
 	// Repairs at or below required come first, in year 1.
-	var mandatory []*Candidate
 	for _, c := range cands {
 		if c.Mandatory {
-			mandatory = append(mandatory, c)
 			p.MandatoryCost += c.Cost
 		}
 	}
-	if p.MandatoryCost > left[0] {
-		p.MandatoryOver = p.MandatoryCost - left[0]
-		sol := solveYear(mandatory, left[0], yearStart(1))
-		for _, i := range sol.Chosen {
-			place(mandatory[i], 1, "at or below required")
+	p.MandatoryOver = max(p.MandatoryCost-left[0], 0)
+
+	// The first year's money goes to repairs at or below required before any
+	// deadline placement.
+	reserve := func(y int) float64 {
+		if y == 1 {
+			return min(p.MandatoryCost, left[0])
 		}
-		p.Solutions = append(p.Solutions, sol)
-	} else {
-		for _, c := range mandatory {
-			place(c, 1, "at or below required")
-		}
+		return 0
 	}
 
 	// Deadlines inside the plan, earliest first.
 	var due []*Candidate
 	for _, c := range cands {
-		if !done[c] && c.Deadline != nil && deadlineYear(start, *c.Deadline) <= years {
+		if !c.Mandatory && c.Deadline != nil && deadlineYear(start, *c.Deadline) <= years {
 			due = append(due, c)
 		}
 	}
@@ -104,7 +100,7 @@ func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
 		k := deadlineYear(start, *c.Deadline)
 		placed := false
 		for y := 1; y <= k; y++ {
-			if left[y-1] >= c.Cost {
+			if left[y-1]-reserve(y) >= c.Cost {
 				place(c, y, "before its retirement date "+c.Deadline.Format("2006-01-02"))
 				placed = true
 				break
@@ -113,19 +109,40 @@ func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
 		if !placed {
 			best := 0.0
 			for y := 1; y <= k; y++ {
-				best = math.Max(best, left[y-1])
+				best = math.Max(best, left[y-1]-reserve(y))
 			}
 			p.Uncovered = append(p.Uncovered, Shortfall{Candidate: c, Money: c.Cost - best})
 		}
 	}
 
-	// Fill each year with the most risk reduction for what is left.
+	// Each year: repairs at or below required (or past their retirement date)
+	// that are still unfunded come first; while any of them stays unfunded,
+	// nothing else is. Then the most risk reduction for what is left.
 	for y := 1; y <= years; y++ {
-		var pool []*Candidate
+		var urgent, pool []*Candidate
 		for _, c := range cands {
-			if !done[c] && !(c.Mandatory && p.MandatoryOver > 0 && y == 1) {
+			switch {
+			case done[c]:
+			case c.Mandatory || (c.Deadline != nil && !c.Deadline.After(yearStart(y))):
+				urgent = append(urgent, c)
+			default:
 				pool = append(pool, c)
 			}
+		}
+		var need float64
+		for _, c := range urgent {
+			need += c.Cost
+		}
+		if need > left[y-1] {
+			sol := solveYear(urgent, left[y-1], yearStart(y))
+			for _, i := range sol.Chosen {
+				place(urgent[i], y, "at or below required")
+			}
+			p.Solutions = append(p.Solutions, sol)
+			continue
+		}
+		for _, c := range urgent {
+			place(c, y, "at or below required")
 		}
 		sol := solveYear(pool, left[y-1], yearStart(y))
 		for _, i := range sol.Chosen {

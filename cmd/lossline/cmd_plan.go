@@ -1,0 +1,64 @@
+package main
+
+import (
+	"fmt"
+
+	"github.com/spf13/cobra"
+
+	"github.com/lossline/lossline/report"
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/plan"
+)
+
+func newPlanCmd() *cobra.Command {
+	c := &cobra.Command{
+		Use:   "plan SURVEY... --budget AMOUNT [--plan-years N --budget-per-year AMOUNT]",
+		Short: "Plan repairs for a budget across one or several survey folders",
+		Long: "Chooses the repairs that remove the most risk for the money: repairs of components at or below\n" +
+			"required thickness first, then the best set within the budget (0/1 knapsack). Over several years,\n" +
+			"components are repaired before their retirement dates where the budgets allow; those that cannot\n" +
+			"be are named with the money missing. Settings (costs, currency) come from the first survey folder.",
+		Args: func(cmd *cobra.Command, args []string) error {
+			if len(args) == 0 {
+				return usageError{fmt.Errorf("plan needs at least one survey folder")}
+			}
+			return nil
+		},
+		RunE: runPlan,
+	}
+	c.Flags().Bool("csv", false, "print CSV instead of an aligned table")
+	addSettingFlags(c)
+	return c
+}
+
+func runPlan(c *cobra.Command, args []string) error {
+	set, err := loadSettings(c, args[0])
+	if err != nil {
+		return err
+	}
+	if set.Plan.Budget <= 0 && !c.Flags().Changed(keyBudget) {
+		return usageError{fmt.Errorf("give --budget AMOUNT (or budget: in the settings)")}
+	}
+	var cands []*plan.Candidate
+	var noCost []plan.NoCost
+	var latest *survey.Survey
+	for _, dir := range args {
+		s, problems := survey.LoadSeries(dir, nil)
+		if problems.HasErrors() {
+			return survey.InputError{Problems: problems}
+		}
+		cs, nc := plan.Candidates(s.Title, survey.Assess(s, set.Policy), set.Plan.Costs)
+		cands, noCost = append(cands, cs...), append(noCost, nc...)
+		if latest == nil || s.Date.After(latest.Date) {
+			latest = s
+		}
+	}
+	p := set.Plan.Make(cands, latest.Date)
+	asCSV, _ := c.Flags().GetBool("csv")
+	out, err := report.PlanText(p, noCost, set.Plan.Costs.Currency, asCSV)
+	if err != nil {
+		return err
+	}
+	_, err = c.OutOrStdout().Write(out)
+	return err
+}
