@@ -34,7 +34,7 @@ func (s Solution) Gap() float64 {
 // limit with the best solution found and its gap to the LP bound.
 const (
 	dpCellLimit = 40_000_000
-	bbNodeLimit = 2_000_000
+	bbNodeLimit = 5_000_000
 )
 
 // Solve chooses items of total cost at most budget with the largest total

@@ -159,3 +159,41 @@ func BenchmarkSolve5000(b *testing.B) {
 	b.ReportMetric(s.Gap(), "gap")
 	b.ReportMetric(100*s.Gap()/float64(s.Value), "gap-%")
 }
+
+// hardInstance is strongly correlated (value = cost/1000 + 10), the classic hard
+// case for branch and bound (Pisinger, "Where are the hard knapsack problems?", 2005).
+func hardInstance() []Item {
+	rng := rand.New(rand.NewPCG(3, 5))
+	items := make([]Item, 5000)
+	for i := range items {
+		c := 2000 + int64(rng.IntN(58001))
+		items[i] = Item{Cost: c, Value: c/1000 + 10}
+	}
+	return items
+}
+
+func TestSolveHardWithinTime(t *testing.T) {
+	items := hardInstance()
+	start := time.Now()
+	s := Solve(items, 10_000_000)
+	el := time.Since(start)
+	checkFeasible(t, items, 10_000_000, s)
+	if el > 2*time.Second {
+		t.Errorf("hard instance: %v, want under 2 s", el)
+	}
+	if s.Gap() > 0.01*float64(s.Value) {
+		t.Errorf("gap %.1f of %d is over 1 %%", s.Gap(), s.Value)
+	}
+	t.Logf("%s: value %d, bound %.1f, gap %.2f (%.4f %%), exact %v, %v", s.Method, s.Value, s.UpperBound, s.Gap(), 100*s.Gap()/float64(s.Value), s.Exact, el)
+}
+
+// BenchmarkSolve5000Hard: the strongly correlated instance.
+func BenchmarkSolve5000Hard(b *testing.B) {
+	items := hardInstance()
+	var s Solution
+	for b.Loop() {
+		s = Solve(items, 10_000_000)
+	}
+	b.ReportMetric(s.Gap(), "gap")
+	b.ReportMetric(100*s.Gap()/float64(s.Value), "gap-%")
+}
