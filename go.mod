@@ -4,12 +4,14 @@ go 1.26.8
 
 require (
 	github.com/go-pdf/fpdf v0.9.0
+	github.com/golang/geo v0.0.0-20260818125358-b200a1149890
 	github.com/rwcarlsen/goexif v0.0.0-20190401172101-9e8deecbddbd
 	github.com/spf13/cobra v1.10.2
 	github.com/spf13/viper v1.21.0
 	github.com/yuin/goldmark v1.8.7
 	github.com/yuin/goldmark-meta v1.1.0
 	golang.org/x/image v0.48.0
+	gonum.org/v1/gonum v0.17.0
 )
 
 require (
@@ -26,6 +28,5 @@ require (
 	go.yaml.in/yaml/v3 v3.0.4 // indirect
 	golang.org/x/sys v0.50.0 // indirect
 	golang.org/x/text v0.44.0 // indirect
-	gonum.org/v1/gonum v0.17.0 // indirect
 	gopkg.in/yaml.v2 v2.3.0 // indirect
 )

@@ -21,7 +21,7 @@ var update = flag.Bool("update", false, "rewrite golden files")
 
 func demo(t *testing.T) (*survey.Survey, []*survey.Assessed) {
 	t.Helper()
-	s, problems := survey.LoadSeries(filepath.Join("..", "testdata", "demo"), nil)
+	s, problems := survey.LoadSeries(filepath.Join("..", "testdata", "demo"), nil, survey.DefaultOptions)
 	if problems.HasErrors() {
 		t.Fatal(problems)
 	}

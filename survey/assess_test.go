@@ -14,7 +14,7 @@ import (
 // Demo CMLs recomputed by hand from the API 570 §7.1.1 formulas, with day
 // counts taken from a calendar (python3 datetime) and years = days/365.25.
 func TestAssessDemoByHand(t *testing.T) {
-	s, problems := LoadSeries(filepath.Join("..", "testdata", "demo"), nil)
+	s, problems := LoadSeries(filepath.Join("..", "testdata", "demo"), nil, DefaultOptions)
 	if problems.HasErrors() {
 		t.Fatal(problems)
 	}

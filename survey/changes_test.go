@@ -11,7 +11,7 @@ import (
 
 func demoChanges(t *testing.T) map[string]Change {
 	t.Helper()
-	s, problems := LoadSeries(filepath.Join("..", "testdata", "demo"), nil)
+	s, problems := LoadSeries(filepath.Join("..", "testdata", "demo"), nil, DefaultOptions)
 	if problems.HasErrors() {
 		t.Fatal(problems)
 	}

@@ -68,7 +68,7 @@ func (r *checklistReader) lineOf(n ast.Node) int {
 }
 
 // frontMatterKeys are the keys the front matter may hold.
-var frontMatterKeys = []string{"title", "site", "date", "inspector", "units", "previous"}
+var frontMatterKeys = []string{"title", "site", "date", "inspector", "units", "previous", "days"}
 
 func (r *checklistReader) frontMatter(ctx parser.Context) {
 	s := r.survey
@@ -120,6 +120,15 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 		r.problems.Errorf(r.file, line, "unknown units %q (use mm or in)", units)
 	} else {
 		s.Units = u
+	}
+	s.Days = 1
+	if days, line, ok := get("days"); ok {
+		n, err := strconv.Atoi(days)
+		if err != nil || n < 1 || n > 60 {
+			r.problems.Errorf(r.file, line, "days: %q is not a number of survey days from 1 to 60", days)
+		} else {
+			s.Days = n
+		}
 	}
 	if prev, ok := m["previous"]; ok && prev != nil {
 		s.PrevLine = r.keyLine("previous")

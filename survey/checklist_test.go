@@ -93,7 +93,7 @@ func TestFrontMatterProblems(t *testing.T) {
 }
 
 func TestParseDemo(t *testing.T) {
-	s, problems := LoadSeries(filepath.Join("..", "testdata", "demo"), nil)
+	s, problems := LoadSeries(filepath.Join("..", "testdata", "demo"), nil, DefaultOptions)
 	if problems.HasErrors() {
 		t.Fatalf("demo has errors: %v", problems)
 	}
@@ -189,7 +189,7 @@ func TestParseThicknesses(t *testing.T) {
 func TestLoadDoesNotModifyInput(t *testing.T) {
 	path := filepath.Join("..", "testdata", "demo", "survey.md")
 	before, _ := os.ReadFile(path)
-	LoadSeries(filepath.Join("..", "testdata", "demo"), nil)
+	LoadSeries(filepath.Join("..", "testdata", "demo"), nil, DefaultOptions)
 	after, _ := os.ReadFile(path)
 	if string(before) != string(after) {
 		t.Error("survey.md changed")

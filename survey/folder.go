@@ -11,10 +11,22 @@ import (
 // ChecklistFile is the name of the checklist in a survey folder.
 const ChecklistFile = "survey.md"
 
-// Load reads a survey folder: the checklist and the photos it names or holds.
-// It never writes to the folder. Problems come back sorted; the survey is
-// usable only when none of them is an error.
-func Load(dir string) (*Survey, ProblemList) {
+// Options are the reading settings.
+type Options struct {
+	MaxMegapixels float64
+	Place         PlaceOptions
+}
+
+// DefaultOptions are the reading settings when none are given.
+var DefaultOptions = Options{MaxMegapixels: DefaultMaxMegapixels, Place: DefaultPlaceOptions}
+
+// Load reads a survey folder with the default options.
+func Load(dir string) (*Survey, ProblemList) { return LoadWith(dir, DefaultOptions) }
+
+// LoadWith reads a survey folder: the checklist and the photos it names or
+// holds. It never writes to the folder. Problems come back sorted; the survey
+// is usable only when none of them is an error. Photos are placed by LoadSeries.
+func LoadWith(dir string, opt Options) (*Survey, ProblemList) {
 	file := filepath.Join(dir, ChecklistFile)
 	src, err := os.ReadFile(file)
 	if err != nil {
@@ -28,8 +40,8 @@ func Load(dir string) (*Survey, ProblemList) {
 	}
 	s, problems := ParseChecklist(file, src)
 	s.Dir = dir
-	photos, photoProblems := ScanPhotos(dir)
-	s.Photos = photos
+	photos, skipped, photoProblems := ScanPhotos(dir, opt.MaxMegapixels)
+	s.Photos, s.Skipped = photos, skipped
 	problems = append(problems, photoProblems...)
 	problems = append(problems, linkPhotos(s)...)
 	problems.Sort()
@@ -55,7 +67,13 @@ func linkPhotos(s *Survey) ProblemList {
 			}
 			p, ok := byName[name]
 			if !ok {
-				problems.Errorf(s.File, m.Line, "photo %q of CML %s is not in %s", ref, m.ID, filepath.Join(s.Dir, PhotoDir))
+				why := "is not in " + filepath.Join(s.Dir, PhotoDir)
+				for _, sk := range s.Skipped {
+					if sk.Name == name {
+						why = "was skipped: " + sk.Reason
+					}
+				}
+				problems.Errorf(s.File, m.Line, "photo %q of CML %s %s", ref, m.ID, why)
 				continue
 			}
 			m.PhotoRefs[i] = name

@@ -34,8 +34,8 @@ type DesignChange struct {
 // front matter (`previous:`, relative to the folder, followed recursively) and
 // in extra (relative to the working directory), and merges their readings into
 // the newest survey by CML id. Folders may be given in any order.
-func LoadSeries(dir string, extra []string) (*Survey, ProblemList) {
-	s, problems := Load(dir)
+func LoadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) {
+	s, problems := LoadWith(dir, opt)
 	if s == nil || problems.HasErrors() {
 		return s, problems
 	}
@@ -51,7 +51,7 @@ func LoadSeries(dir string, extra []string) (*Survey, ProblemList) {
 				continue
 			}
 			seen[absPath(d)] = true
-			e, p := Load(d)
+			e, p := LoadWith(d, opt)
 			if e == nil {
 				problems.Errorf(from.File, line, "previous survey %s cannot be read", d)
 				problems = append(problems, p...)
@@ -71,6 +71,9 @@ func LoadSeries(dir string, extra []string) (*Survey, ProblemList) {
 		problems = append(problems, Merge(s, earlier)...)
 	}
 	problems = append(problems, readingChecks(s)...)
+	if !problems.HasErrors() {
+		problems = append(problems, PlacePhotos(s, opt.Place)...)
+	}
 	problems.Sort()
 	s.Problems = problems.Warnings()
 	return s, problems

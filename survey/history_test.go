@@ -29,7 +29,7 @@ func TestMergeSeries(t *testing.T) {
 		"| CML | was | 2026-05-01 |\n|---|---|---|\n| C-01 | C-1 | 9.0 |\n| C-02 | C-2 | 9.2 |\n| C-03 | | 9.9 |\n")
 
 	// The 2016 folder comes in through --previous, out of date order: the merge sorts.
-	s, problems := LoadSeries(newest, []string{filepath.Join(root, "y2016")})
+	s, problems := LoadSeries(newest, []string{filepath.Join(root, "y2016")}, DefaultOptions)
 	if problems.HasErrors() {
 		t.Fatal(problems)
 	}
@@ -70,7 +70,7 @@ func TestMergeConflict(t *testing.T) {
 		"| CML | 2016-05-01 | 2021-05-01 |\n|---|---|---|\n| C-1 | 9.6 | 9.3 |\n")
 	newest := writeSurvey(t, root, "new", "2026-05-01", "previous: ../old\n", "- nominal: 10\n- required: 5\n",
 		"| CML | 2021-05-01 | 2026-05-01 |\n|---|---|---|\n| C-1 | 9.35 | 9.0 |\n")
-	_, problems := LoadSeries(newest, nil)
+	_, problems := LoadSeries(newest, nil, DefaultOptions)
 	want := filepath.Join(root, "old", "survey.md") + ":17: CML C-1, visit 2021-05-01: readings 9.30 mm differ from 9.35 mm at " +
 		filepath.Join(root, "new", "survey.md") + ":18"
 	found := false
@@ -86,15 +86,15 @@ func TestMergeRejects(t *testing.T) {
 	root := t.TempDir()
 	writeSurvey(t, root, "later", "2027-01-01", "", "- nominal: 10\n", "| CML | 2027-01-01 |\n|---|---|\n| C-1 | 9 |\n")
 	newest := writeSurvey(t, root, "new", "2026-05-01", "previous: ../later\n", "- nominal: 10\n", "| CML | 2026-05-01 |\n|---|---|\n| C-1 | 9.0 |\n")
-	if _, problems := LoadSeries(newest, nil); !strings.Contains(problemText(problems), "after this survey") {
+	if _, problems := LoadSeries(newest, nil, DefaultOptions); !strings.Contains(problemText(problems), "after this survey") {
 		t.Errorf("a previous survey dated later: %v", problems)
 	}
 	renamed := writeSurvey(t, root, "ren", "2026-05-01", "", "- nominal: 10\n",
 		"| CML | was | 2026-05-01 |\n|---|---|---|\n| C-1 | | 9.0 |\n| C-2 | C-1 | 9.1 |\n")
-	if _, problems := LoadSeries(renamed, []string{filepath.Join(root, "new")}); !strings.Contains(problemText(problems), "C-2 was C-1, but C-1 is still a CML") {
+	if _, problems := LoadSeries(renamed, []string{filepath.Join(root, "new")}, DefaultOptions); !strings.Contains(problemText(problems), "C-2 was C-1, but C-1 is still a CML") {
 		t.Errorf("ambiguous rename: %v", problems)
 	}
-	if _, problems := LoadSeries(newest, []string{filepath.Join(root, "missing")}); !problems.HasErrors() {
+	if _, problems := LoadSeries(newest, []string{filepath.Join(root, "missing")}, DefaultOptions); !problems.HasErrors() {
 		t.Error("a missing previous folder is no error")
 	}
 }

@@ -17,10 +17,12 @@ type Survey struct {
 	Site      string    // front matter site
 	Date      time.Time // this visit
 	Inspector string
+	Days      int  // survey days from Date (front matter days:, default 1)
 	Units     Unit // display units, and the unit of a bare number
 	Assets    []*Asset
-	Notes     []Note    // notes before the first heading
-	Photos    []*Photo  // every JPEG found under photos/, sorted by name
+	Notes     []Note   // notes before the first heading
+	Photos    []*Photo // every usable JPEG found under photos/, sorted by name
+	Skipped   []SkippedFile
 	Previous  []string  // earlier survey folders named in the front matter, relative to Dir
 	PrevLine  int       // line of the previous: key
 	History   *History  // what earlier surveys added; nil when there are none
@@ -166,6 +168,15 @@ type Photo struct {
 	Orientation int      // EXIF orientation 1..8; 1 when absent
 	CMLs        []string // CMLs whose rows name this photo
 	Problem     string   // why the file could not be read, if it could not
+	Hash        string   // SHA-256 of the file, hex
+	Width       int      // pixels, as stored (before orientation)
+	Height      int
+	Placement   Placement
+}
+
+// SkippedFile is a file in photos/ that is not used, and why.
+type SkippedFile struct {
+	Name, Path, Reason string
 }
 
 // AllCMLs returns every CML in checklist order with its asset and component.

@@ -1,8 +1,12 @@
 package survey
 
 import (
-	"bufio"
+	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
 	"fmt"
+	"image/jpeg"
+	"io"
 	"io/fs"
 	"os"
 	"path/filepath"
@@ -16,13 +20,25 @@ import (
 // PhotoDir is the folder of a survey that holds its photos.
 const PhotoDir = "photos"
 
+// DefaultMaxMegapixels rejects images larger than any phone or compact camera
+// makes (200 MP) before anything decodes them.
+const DefaultMaxMegapixels = 200
+
 // ScanPhotos lists the JPEGs under dir/photos (any depth) with their EXIF
-// time, position and orientation. Files that are not JPEG, or whose header
-// cannot be read, come back as warnings; a missing folder is no problem.
-func ScanPhotos(dir string) ([]*Photo, ProblemList) {
+// time, position and orientation, their size from the JPEG header and a hash
+// of their content. Files that are not JPEG, cannot be read, declare more
+// than maxMP megapixels, or repeat another file's content are listed as
+// skipped with the reason; a missing folder is no problem.
+func ScanPhotos(dir string, maxMP float64) ([]*Photo, []SkippedFile, ProblemList) {
 	var photos []*Photo
+	var skipped []SkippedFile
 	var problems ProblemList
+	byHash := map[string]*Photo{}
 	root := filepath.Join(dir, PhotoDir)
+	skip := func(name, path, why string) {
+		skipped = append(skipped, SkippedFile{Name: name, Path: path, Reason: why})
+		problems.Warnf(path, 0, "skipped: %s", why)
+	}
 	err := filepath.WalkDir(root, func(path string, d fs.DirEntry, err error) error {
 		if err != nil {
 			if path == root && os.IsNotExist(err) {
@@ -35,16 +51,37 @@ func ScanPhotos(dir string) ([]*Photo, ProblemList) {
 			return nil
 		}
 		rel, _ := filepath.Rel(root, path)
-		ext := strings.ToLower(filepath.Ext(path))
-		if ext != ".jpg" && ext != ".jpeg" {
-			problems.Warnf(path, 0, "not a JPEG photo: skipped")
+		name := filepath.ToSlash(rel)
+		if why := notPhoto(name); why != "" {
+			skip(name, path, why)
 			return nil
 		}
-		p := &Photo{Name: filepath.ToSlash(rel), Path: path, Orientation: 1}
-		if err := readEXIF(p); err != nil {
+		data, err := os.ReadFile(path)
+		if err != nil {
+			skip(name, path, "cannot be read: "+err.Error())
+			return nil
+		}
+		sum := sha256.Sum256(data)
+		hash := hex.EncodeToString(sum[:])
+		if first, dup := byHash[hash]; dup {
+			skip(name, path, "same content as "+first.Name)
+			return nil
+		}
+		cfg, err := jpeg.DecodeConfig(bytes.NewReader(data))
+		if err != nil {
+			skip(name, path, "not a readable JPEG: "+err.Error())
+			return nil
+		}
+		if mp := float64(cfg.Width) * float64(cfg.Height) / 1e6; mp > maxMP {
+			skip(name, path, fmt.Sprintf("%d×%d pixels (%.0f MP) is over the %g MP limit", cfg.Width, cfg.Height, mp, maxMP))
+			return nil
+		}
+		p := &Photo{Name: name, Path: path, Orientation: 1, Hash: hash, Width: cfg.Width, Height: cfg.Height}
+		if err := readEXIF(p, bytes.NewReader(data)); err != nil {
 			p.Problem = err.Error()
 			problems.Warnf(path, 0, "photo header cannot be read (%v): shown without time and position", err)
 		}
+		byHash[hash] = p
 		photos = append(photos, p)
 		return nil
 	})
@@ -52,29 +89,38 @@ func ScanPhotos(dir string) ([]*Photo, ProblemList) {
 		problems.Warnf(root, 0, "cannot read the photo folder: %v", err)
 	}
 	sort.Slice(photos, func(i, j int) bool { return photos[i].Name < photos[j].Name })
-	return photos, problems
+	return photos, skipped, problems
+}
+
+// notPhoto says why a file is not taken as a photo, or "" when it may be one.
+func notPhoto(name string) string {
+	base := filepath.Base(name)
+	ext := strings.ToLower(filepath.Ext(name))
+	switch {
+	case strings.HasPrefix(base, "._") || base == ".DS_Store" || base == "Thumbs.db" || base == "desktop.ini":
+		return "system file"
+	case ext == ".jpg" || ext == ".jpeg" || ext == ".jpe":
+		return ""
+	case ext == ".heic" || ext == ".heif":
+		return "HEIC photo: export it as JPEG"
+	case ext == ".png" || ext == ".gif" || ext == ".tif" || ext == ".tiff" || ext == ".webp" || ext == ".bmp" || ext == ".dng":
+		return "not a JPEG (" + strings.TrimPrefix(ext, ".") + ")"
+	case ext == ".mp4" || ext == ".mov" || ext == ".avi" || ext == ".m4v" || ext == ".3gp":
+		return "video"
+	}
+	return "not a JPEG"
 }
 
 // readEXIF fills p from the file's EXIF header. A panic inside the EXIF
 // library on a damaged file is turned into an error for that file alone.
-func readEXIF(p *Photo) (err error) {
+func readEXIF(p *Photo, r io.Reader) (err error) {
 	defer func() {
-		if r := recover(); r != nil {
-			err = fmt.Errorf("damaged EXIF header: %v", r)
+		if rec := recover(); rec != nil {
+			err = fmt.Errorf("damaged EXIF header: %v", rec)
 		}
 	}()
-	f, err := os.Open(p.Path)
-	if err != nil {
-		return err
-	}
-	defer f.Close()
-	x, err := exif.Decode(bufio.NewReader(f))
-	if err != nil {
-		if exif.IsCriticalError(err) {
-			return fmt.Errorf("no EXIF data")
-		}
-	}
-	if x == nil {
+	x, err := exif.Decode(r)
+	if err != nil && exif.IsCriticalError(err) || x == nil {
 		return fmt.Errorf("no EXIF data")
 	}
 	if tag, err := x.Get(exif.DateTimeOriginal); err == nil {

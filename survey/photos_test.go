@@ -1,7 +1,9 @@
 package survey
 
 import (
+	"bytes"
 	"image"
+	"image/jpeg"
 	"math"
 	"os"
 	"path/filepath"
@@ -15,7 +17,10 @@ import (
 // The demo photos carry the EXIF the generator (tools/demophotos) wrote;
 // goexif, an independent reader, must read the same values back.
 func TestScanDemoPhotos(t *testing.T) {
-	photos, problems := ScanPhotos(filepath.Join("..", "testdata", "demo"))
+	photos, skipped, problems := ScanPhotos(filepath.Join("..", "testdata", "demo"), DefaultMaxMegapixels)
+	if len(skipped) != 0 {
+		t.Errorf("skipped: %v", skipped)
+	}
 	if len(problems) != 0 {
 		t.Errorf("problems: %v", problems)
 	}
@@ -43,7 +48,8 @@ func TestScanDemoPhotos(t *testing.T) {
 	}
 }
 
-// Unreadable files are warnings about that file, never a crash.
+// Unreadable, foreign, oversized and duplicate files are skipped with the
+// reason, never a crash.
 func TestScanPhotosRobust(t *testing.T) {
 	dir := t.TempDir()
 	ph := filepath.Join(dir, PhotoDir)
@@ -52,36 +58,57 @@ func TestScanPhotosRobust(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	os.WriteFile(filepath.Join(ph, "sub", "good.JPG"), good, 0o644)
-	os.WriteFile(filepath.Join(ph, "truncated.jpg"), good[:40], 0o644)
-	os.WriteFile(filepath.Join(ph, "garbage.jpg"), []byte("not a jpeg at all"), 0o644)
-	os.WriteFile(filepath.Join(ph, "plan.png"), []byte("\x89PNG"), 0o644)
-	os.WriteFile(filepath.Join(ph, ".DS_Store"), []byte{0, 1}, 0o644)
+	write := func(name string, data []byte) { os.WriteFile(filepath.Join(ph, name), data, 0o644) }
+	write("sub/good.JPG", good)
+	write("zz-copy.jpg", good)
+	write("truncated.jpg", good[:40])
+	write("garbage.jpg", []byte("not a jpeg at all"))
+	write("plan.png", []byte("\x89PNG"))
+	write("IMG_0001.HEIC", []byte("ftypheic"))
+	write("clip.mp4", []byte{0, 0, 0, 24})
+	write(".DS_Store", []byte{0, 1})
+	write("huge.jpg", hugeHeader(t, 20000, 15000))
 
-	photos, problems := ScanPhotos(dir)
-	if len(photos) != 3 {
-		t.Fatalf("%d photos, want 3 (good, truncated, garbage)", len(photos))
+	photos, skipped, _ := ScanPhotos(dir, 200)
+	if len(photos) != 1 || photos[0].Name != "sub/good.JPG" {
+		t.Fatalf("photos %v, want only sub/good.JPG", photos)
 	}
-	byName := map[string]*Photo{}
-	for _, p := range photos {
-		byName[p.Name] = p
-	}
-	g := byName["sub/good.JPG"]
-	if g == nil || g.GPS == nil || g.GPS.Lat != -33.5 || g.GPS.Lon != 151.25 || g.Orientation != 3 || g.Problem != "" {
+	g := photos[0]
+	if g.GPS == nil || g.GPS.Lat != -33.5 || g.GPS.Lon != 151.25 || g.Orientation != 3 || g.Width != 8 || len(g.Hash) != 64 {
 		t.Errorf("good photo read as %+v", g)
 	}
-	for _, name := range []string{"truncated.jpg", "garbage.jpg"} {
-		if byName[name].Problem == "" {
-			t.Errorf("%s: no problem recorded", name)
+	reasons := map[string]string{}
+	for _, s := range skipped {
+		reasons[s.Name] = s.Reason
+	}
+	for name, want := range map[string]string{
+		"zz-copy.jpg":   "same content as sub/good.JPG",
+		"truncated.jpg": "not a readable JPEG",
+		"garbage.jpg":   "not a readable JPEG",
+		"plan.png":      "not a JPEG (png)",
+		"IMG_0001.HEIC": "HEIC photo",
+		"clip.mp4":      "video",
+		".DS_Store":     "system file",
+		"huge.jpg":      "20000×15000 pixels (300 MP) is over the 200 MP limit",
+	} {
+		if !strings.Contains(reasons[name], want) {
+			t.Errorf("%s: reason %q, want %q", name, reasons[name], want)
 		}
 	}
-	text := ""
-	for _, p := range problems {
-		text += p.String() + "\n"
-	}
-	for _, want := range []string{"plan.png: warning: not a JPEG", ".DS_Store: warning: not a JPEG", "garbage.jpg: warning: photo header cannot be read"} {
-		if !strings.Contains(text, want) {
-			t.Errorf("warnings lack %q:\n%s", want, text)
+}
+
+// hugeHeader is a valid small JPEG whose frame header declares w × h pixels.
+func hugeHeader(t *testing.T, w, h int) []byte {
+	var b bytes.Buffer
+	jpeg.Encode(&b, image.NewGray(image.Rect(0, 0, 8, 8)), nil)
+	data := b.Bytes()
+	for i := 0; i+8 < len(data); i++ {
+		if data[i] == 0xFF && data[i+1] == 0xC0 { // SOF0: length, precision, height, width
+			data[i+5], data[i+6] = byte(h>>8), byte(h)
+			data[i+7], data[i+8] = byte(w>>8), byte(w)
+			return data
 		}
 	}
+	t.Fatal("no SOF0 marker")
+	return nil
 }

@@ -23,11 +23,12 @@ func newCheckCmd() *cobra.Command {
 }
 
 func runCheck(c *cobra.Command, args []string) error {
-	if _, err := loadSettings(c, args[0]); err != nil {
+	set, err := loadSettings(c, args[0])
+	if err != nil {
 		return err
 	}
 	previous, _ := c.Flags().GetStringSlice("previous")
-	_, problems := survey.LoadSeries(args[0], previous)
+	_, problems := survey.LoadSeries(args[0], previous, set.Read)
 	w := c.OutOrStdout()
 	errs := 0
 	for _, p := range problems {

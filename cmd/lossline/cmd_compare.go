@@ -28,7 +28,7 @@ func runCompare(c *cobra.Command, args []string) error {
 	if err != nil {
 		return err
 	}
-	s, problems := survey.LoadSeries(newDir, []string{oldDir})
+	s, problems := survey.LoadSeries(newDir, []string{oldDir}, set.Read)
 	if problems.HasErrors() {
 		return survey.InputError{Problems: problems}
 	}

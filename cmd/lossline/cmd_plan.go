@@ -43,7 +43,7 @@ func runPlan(c *cobra.Command, args []string) error {
 	var noCost []plan.NoCost
 	var latest *survey.Survey
 	for _, dir := range args {
-		s, problems := survey.LoadSeries(dir, nil)
+		s, problems := survey.LoadSeries(dir, nil, set.Read)
 		if problems.HasErrors() {
 			return survey.InputError{Problems: problems}
 		}

@@ -39,7 +39,7 @@ func runReport(c *cobra.Command, args []string) error {
 		return err
 	}
 	previous, _ := c.Flags().GetStringSlice("previous")
-	s, problems := survey.LoadSeries(dir, previous)
+	s, problems := survey.LoadSeries(dir, previous, set.Read)
 	if problems.HasErrors() {
 		return survey.InputError{Problems: problems}
 	}

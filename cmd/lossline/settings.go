@@ -31,7 +31,8 @@ type settings struct {
 	// more than this percentage above its long-term rate.
 	AccelerationPct float64
 	Plan            report.PlanSettings // Budget 0: no plan
-	Sources         []string            // files read, lowest precedence first
+	Read            survey.Options
+	Sources         []string // files read, lowest precedence first
 }
 
 // Setting keys (file keys; environment LOSSLINE_INTERVAL_CAP_YEARS etc.).
@@ -52,10 +53,14 @@ const (
 	keyBudget      = "budget"
 	keyPlanYears   = "plan-years"
 	keyPerYear     = "budget-per-year"
+	keyMaxMP       = "max-megapixels"
+	keyAutoPlace   = "auto-place"
+	keyRadius      = "placement-radius-m"
+	keyArea        = "area-radius-m"
 )
 
 // settingKeys are every key a settings file may hold.
-var settingKeys = []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates, keyRateModel, keyRule, keyTolerance, keyThickUnits, keyRateUnits, keyAccel, keyCurrency, keyBudget, keyPlanYears, keyPerYear}
+var settingKeys = []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates, keyRateModel, keyRule, keyTolerance, keyThickUnits, keyRateUnits, keyAccel, keyCurrency, keyBudget, keyPlanYears, keyPerYear, keyMaxMP, keyAutoPlace, keyRadius, keyArea}
 
 // addSettingFlags declares the flags that override settings files.
 func addSettingFlags(c *cobra.Command) {
@@ -74,6 +79,10 @@ func addSettingFlags(c *cobra.Command) {
 	f.Float64(keyBudget, 0, "repair budget of the first plan year, in the currency (0: no plan in the report)")
 	f.Int(keyPlanYears, 1, "`years` the repair plan covers")
 	f.Float64(keyPerYear, 0, "repair budget of each later plan year (default: the first year's)")
+	f.Float64(keyMaxMP, survey.DefaultMaxMegapixels, "photos declaring more `megapixels` are skipped before decoding")
+	f.Bool(keyAutoPlace, true, "place photos no CML names by their GPS position")
+	f.Float64(keyRadius, survey.DefaultPlaceOptions.RadiusM, "a photo within this many `metres` of a CML is placed on it")
+	f.Float64(keyArea, survey.DefaultPlaceOptions.AreaRadiusM, "margin in `metres` around a component's or asset's CMLs for placing photos on it")
 	f.String(keyRateUnits, "", "rate `units` shown in the report: mm/y, mpy or in/y (default: mm/y for mm, mpy for in)")
 }
 
@@ -91,6 +100,10 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	v.SetDefault(keyThickUnits, "")
 	v.SetDefault(keyRateUnits, "")
 	v.SetDefault(keyAccel, 25.0)
+	v.SetDefault(keyMaxMP, float64(survey.DefaultMaxMegapixels))
+	v.SetDefault(keyAutoPlace, true)
+	v.SetDefault(keyRadius, survey.DefaultPlaceOptions.RadiusM)
+	v.SetDefault(keyArea, survey.DefaultPlaceOptions.AreaRadiusM)
 	v.SetDefault(keyCurrency, "currency units")
 	v.SetDefault(keyBudget, 0.0)
 	v.SetDefault(keyPlanYears, 1)
@@ -138,6 +151,11 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	}
 	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: model, Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
 	s.AccelerationPct = v.GetFloat64(keyAccel)
+	s.Read = survey.Options{MaxMegapixels: v.GetFloat64(keyMaxMP), Place: survey.PlaceOptions{
+		Auto: v.GetBool(keyAutoPlace), RadiusM: v.GetFloat64(keyRadius), AreaRadiusM: v.GetFloat64(keyArea)}}
+	if s.Read.MaxMegapixels <= 0 || s.Read.Place.RadiusM < 0 || s.Read.Place.AreaRadiusM < 0 {
+		return s, badInput{fmt.Errorf("%s must be positive, %s and %s not negative", keyMaxMP, keyRadius, keyArea)}
+	}
 	s.Plan = report.PlanSettings{Budget: v.GetFloat64(keyBudget), PerYear: v.GetFloat64(keyPerYear), Years: v.GetInt(keyPlanYears),
 		Costs: plan.Costs{Currency: v.GetString(keyCurrency), Unit: map[string]float64{}}}
 	for k := range v.GetStringMap(keyUnitCosts) {
