@@ -26,6 +26,7 @@ type Options struct {
 	AccelerationPct float64
 	Photos          PhotoSettings
 	Plan            PlanSettings // a repair plan is drawn when Plan.Budget > 0
+	Place           survey.PlaceOptions
 	Templates       templates.Set
 	Created         time.Time // printed as the report date and written as the PDF's creation date
 	Version         string    // lossline version, printed on the cover

@@ -17,6 +17,7 @@ func (d *doc) asset(a *survey.Asset) {
 	if len(a.Notes) > 0 {
 		d.notes(a.Notes)
 	}
+	d.sitePlan(a)
 	for _, c := range a.Components {
 		d.component(a, c)
 	}
@@ -112,6 +113,16 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 			if e := d.photos[ref]; e != nil {
 				shown = append(shown, photoShown{entry: e, cml: m.ID})
 			}
+		}
+		for _, ph := range d.s.Photos { // placed on the CML by position
+			if pl := ph.Placement; pl.CML == m.ID && pl.Basis != survey.PlacedNamed && d.photos[ph.Name] != nil {
+				shown = append(shown, photoShown{entry: d.photos[ph.Name], cml: m.ID})
+			}
+		}
+	}
+	for _, ph := range d.s.Photos { // placed on the component by position
+		if pl := ph.Placement; pl.Basis == survey.PlacedComponent && pl.Asset == a.Name && pl.Component == c.Name && d.photos[ph.Name] != nil {
+			shown = append(shown, photoShown{entry: d.photos[ph.Name]})
 		}
 	}
 	if len(shown) > 0 {

@@ -95,9 +95,15 @@ func fit(pp preparedPhoto, w, h float64) (float64, float64) {
 // caption says which CML, which file, when and where.
 func (d *doc) caption(s photoShown) string {
 	ph := s.entry.photo
-	who := "Not linked to a CML"
-	if s.cml != "" {
+	pl := ph.Placement
+	who := "Not placed"
+	switch {
+	case s.cml != "":
 		who = "CML " + s.cml
+	case pl.Component != "":
+		who = "Component " + pl.Component
+	case pl.Asset != "":
+		who = "Asset " + pl.Asset
 	}
 	if s.label != "" {
 		who = s.label + ": " + who
@@ -106,24 +112,44 @@ func (d *doc) caption(s photoShown) string {
 	if ph.Taken != nil {
 		taken = "taken " + ph.Taken.Format("2006-01-02 15:04")
 	}
-	return fmt.Sprintf("%s · %s\n%s · %s", who, ph.Name, taken, latLon(ph.GPS))
+	text := fmt.Sprintf("%s · %s\n%s · %s", who, ph.Name, taken, latLon(ph.GPS))
+	if s.label == "" && pl.Basis != "" && pl.Basis != survey.PlacedNamed {
+		text += "\nplaced by position: " + pl.Words()
+		if pl.DistanceM != nil {
+			text += fmt.Sprintf(", %.0f m", *pl.DistanceM)
+		}
+	}
+	return text
 }
 
-// unlinkedPhotos writes the appendix of photos no CML names.
+// unlinkedPhotos writes the appendix of photos placed on no CML or
+// component: those placed on an asset only, the unplaced ones with the
+// reason, and the files skipped.
 func (d *doc) unlinkedPhotos() {
 	d.newPage(false)
-	d.heading(0, "Appendix A — Photos not linked to a CML")
+	d.heading(0, "Appendix A — Photos not placed on a CML or component")
 	var shown []photoShown
 	for _, ph := range d.s.Photos {
-		if e := d.photos[ph.Name]; e != nil && len(ph.CMLs) == 0 {
+		pl := ph.Placement
+		if e := d.photos[ph.Name]; e != nil && pl.CML == "" && pl.Component == "" {
 			shown = append(shown, photoShown{entry: e})
 		}
 	}
 	if len(shown) == 0 {
-		d.text("Every photo in the survey's photos folder is named by a CML.")
-		return
+		d.text("Every photo is placed on a CML or component.")
+	} else {
+		d.text(fmt.Sprintf("%d photos are neither named in a reading table nor close enough to a CML or component to be placed "+
+			"on one (placement radius %g m, area margin %g m). Each caption says where the photo was placed, if anywhere, and why.",
+			len(shown), d.opts.Place.RadiusM, d.opts.Place.AreaRadiusM))
+		d.pdf.Ln(2)
+		d.photoGrid(shown)
 	}
-	d.text(fmt.Sprintf("%d photos in the photos folder are not named in any reading table. They are shown here with their time and position.", len(shown)))
-	d.pdf.Ln(2)
-	d.photoGrid(shown)
+	if len(d.s.Skipped) > 0 {
+		d.heading(1, "Files in the photos folder not used")
+		rows := make([][]string, len(d.s.Skipped))
+		for i, s := range d.s.Skipped {
+			rows[i] = []string{s.Name, s.Reason}
+		}
+		d.table([]column{{"File", 70, "L"}, {"Why", d.width() - 70, "L"}}, rows, nil, smallSize)
+	}
 }

@@ -26,5 +26,9 @@ func Render(s *survey.Survey, items []*survey.Assessed, opts Options) ([]File, s
 	if err != nil {
 		return nil, nil, err
 	}
-	return []File{{PDFFile, pdf}, {JSONFile, js}, {CSVFile, csv}}, warnings, nil
+	geo, err := GeoJSON(s, items)
+	if err != nil {
+		return nil, nil, err
+	}
+	return []File{{PDFFile, pdf}, {JSONFile, js}, {CSVFile, csv}, {GeoJSONFile, geo}}, warnings, nil
 }

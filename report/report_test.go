@@ -13,6 +13,9 @@ import (
 	"testing"
 	"time"
 
+	"github.com/paulmach/orb"
+	"github.com/paulmach/orb/geojson"
+
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 )
@@ -226,5 +229,39 @@ func TestComparison(t *testing.T) {
 	rows, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
 	if err != nil || len(rows) != 1+len(items) || rows[1][1] != "A-03" {
 		t.Errorf("CSV: %v, %d rows", err, len(rows))
+	}
+}
+
+// locations.geojson read back by a general-purpose GeoJSON library: a
+// FeatureCollection of points, longitude first (RFC 7946 §3.1.1).
+func TestGeoJSON(t *testing.T) {
+	s, items := demo(t)
+	b, err := GeoJSON(s, items)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fc, err := geojson.UnmarshalFeatureCollection(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var cmls, photos int
+	for _, f := range fc.Features {
+		pt, ok := f.Geometry.(orb.Point)
+		if !ok {
+			t.Fatalf("%v is not a point", f.Geometry)
+		}
+		// The demo site is at about 45.60° N, 61.35° W: longitude first.
+		if pt.Lon() > -61.3 || pt.Lon() < -61.4 || pt.Lat() < 45.5 || pt.Lat() > 45.7 {
+			t.Errorf("point %v: coordinates not [longitude, latitude]", pt)
+		}
+		switch f.Properties["kind"] {
+		case "cml":
+			cmls++
+		case "photo":
+			photos++
+		}
+	}
+	if cmls != 14 || photos != 10 {
+		t.Errorf("%d CML and %d photo features, want 14 and 10", cmls, photos)
 	}
 }

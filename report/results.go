@@ -17,7 +17,29 @@ type Results struct {
 	Items         []Item         `json:"items"`
 	Dropped       []Dropped      `json:"dropped"`
 	DesignChanges []DesignChange `json:"design_changes"`
+	Photos        []PhotoInfo    `json:"photos"`
+	Skipped       []SkippedInfo  `json:"skipped_files"`
 	Warnings      []Warning      `json:"warnings"`
+}
+
+// PhotoInfo is one photo: when and where it was taken and where it was placed.
+type PhotoInfo struct {
+	File        string   `json:"file"`
+	Taken       *string  `json:"taken"`
+	Latitude    *float64 `json:"latitude"`
+	Longitude   *float64 `json:"longitude"`
+	Orientation int      `json:"orientation"`
+	Asset       string   `json:"asset"`
+	Component   string   `json:"component"`
+	CML         string   `json:"cml"`
+	DistanceM   *float64 `json:"distance_m"`
+	Basis       string   `json:"basis"`
+}
+
+// SkippedInfo is a file of the photos folder that was not used.
+type SkippedInfo struct {
+	File   string `json:"file"`
+	Reason string `json:"reason"`
 }
 
 // Interval is the metal-loss rate between two consecutive visits.
@@ -110,6 +132,7 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 	r := Results{
 		Survey: SurveyInfo{Title: s.Title, Site: s.Site, Date: s.Date.Format(dateLayout), Inspector: s.Inspector, Units: string(s.Units)},
 		Items:  []Item{}, Dropped: []Dropped{}, DesignChanges: []DesignChange{}, Warnings: []Warning{},
+		Photos: []PhotoInfo{}, Skipped: []SkippedInfo{},
 	}
 	byCML := map[*survey.CML]survey.Change{}
 	for _, c := range changes {
@@ -136,7 +159,7 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 			RetirementDate:    dateOf(res.Retirement),
 			NextInspection:    dateOf(res.NextInspection),
 			Flags:             append([]string{}, res.Flags...),
-			Photos:            append([]string{}, it.CML.PhotoRefs...),
+			Photos:            photosOf(s, it.CML),
 		}
 		if res.NextBasis != "" {
 			item.NextInspectionWhy = &res.NextBasis
@@ -163,6 +186,22 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 			}
 		}
 		r.Items = append(r.Items, item)
+	}
+	for _, ph := range s.Photos {
+		pl := ph.Placement
+		info := PhotoInfo{File: ph.Name, Orientation: ph.Orientation, Asset: pl.Asset, Component: pl.Component, CML: pl.CML,
+			DistanceM: round(pl.DistanceM, 1), Basis: pl.Basis}
+		if ph.Taken != nil {
+			t := ph.Taken.Format("2006-01-02T15:04:05")
+			info.Taken = &t
+		}
+		if ph.GPS != nil {
+			info.Latitude, info.Longitude = &ph.GPS.Lat, &ph.GPS.Lon
+		}
+		r.Photos = append(r.Photos, info)
+	}
+	for _, sk := range s.Skipped {
+		r.Skipped = append(r.Skipped, SkippedInfo{File: sk.Name, Reason: sk.Reason})
 	}
 	if h := s.History; h != nil {
 		for _, d := range h.Dropped {
@@ -212,4 +251,16 @@ func round(v *float64, d int) *float64 {
 	p := math.Pow(10, float64(d))
 	x := math.Round(*v*p) / p
 	return &x
+}
+
+// photosOf lists the photos of a CML: those its row names, then those placed
+// on it by position.
+func photosOf(s *survey.Survey, m *survey.CML) []string {
+	out := append([]string{}, m.PhotoRefs...)
+	for _, ph := range s.Photos {
+		if ph.Placement.CML == m.ID && ph.Placement.Basis != survey.PlacedNamed {
+			out = append(out, ph.Name)
+		}
+	}
+	return out
 }

@@ -52,7 +52,7 @@ func runReport(c *cobra.Command, args []string) error {
 		fmt.Fprintf(stderr, "preparing %d photos...\n", len(s.Photos))
 	}
 	files, warnings, err := report.Render(s, items, report.Options{
-		Policy: set.Policy, Display: set.Display, AccelerationPct: set.AccelerationPct, Plan: set.Plan, Photos: set.Photos, Templates: set.Templates, Created: time.Now(), Version: version,
+		Policy: set.Policy, Display: set.Display, AccelerationPct: set.AccelerationPct, Plan: set.Plan, Place: set.Read.Place, Photos: set.Photos, Templates: set.Templates, Created: time.Now(), Version: version,
 	})
 	if err != nil {
 		return err

@@ -24,7 +24,7 @@ func TestExitCodes(t *testing.T) {
 		code int
 		want string // in stdout or stderr
 	}{
-		{[]string{"check", "../../testdata/demo"}, exitOK, "0 errors, 0 warnings"},
+		{[]string{"check", "../../testdata/demo"}, exitOK, "0 errors, 2 warnings"},
 		{[]string{"check", "../../testdata/broken"}, exitBadInput, "broken/survey.md:29: reading \"abc\" is not a number"},
 		{[]string{"report", "../../testdata/bad/duplicate-cml", "-o", "OUT"}, exitBadInput, "survey.md:20: CML C1 is listed twice"},
 		{[]string{"check", "../../testdata/no-such-survey"}, exitBadInput, "survey.md: no checklist"},
@@ -60,6 +60,23 @@ func TestCompareCommand(t *testing.T) {
 	}
 	if code, _, _ := runCLI(t, "compare", "../../testdata/demo"); code != exitUsage {
 		t.Errorf("compare with one folder: exit %d", code)
+	}
+}
+
+func TestPhotosCommand(t *testing.T) {
+	code, out, errOut := runCLI(t, "photos", "../../testdata/demo")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	for _, re := range []string{
+		`line-p220/p220-b02-rack\.jpg\s+2026-11-18 11:40:51\s+45\.601205\s+-61\.349120\s+3\s+CML B-02\s+1\.0\s+nearest-cml`,
+		`overview-east\.jpg .* too-far`,
+		`IMG_2231\.HEIC\s+(-\s+)+skipped: HEIC photo`,
+		`bridge-fb2/fb2-deck\.jpg .* Footbridge FB-2 / Girder G1 bottom flange .* component-area`,
+	} {
+		if !regexp.MustCompile(re).MatchString(out) {
+			t.Errorf("photos output does not match %s:\n%s", re, out)
+		}
 	}
 }
 
@@ -182,7 +199,7 @@ func TestEndToEndDemo(t *testing.T) {
 	if b, err := cmd.CombinedOutput(); err != nil {
 		t.Fatalf("report: %v\n%s", err, b)
 	}
-	for _, f := range []string{"report.pdf", "results.json", "results.csv"} {
+	for _, f := range []string{"report.pdf", "results.json", "results.csv", "locations.geojson"} {
 		if st, err := os.Stat(filepath.Join(out, f)); err != nil || st.Size() == 0 {
 			t.Errorf("%s missing or empty", f)
 		}
@@ -196,7 +213,7 @@ func TestEndToEndDemo(t *testing.T) {
 	for _, want := range []string{
 		"CORROSION THICKNESS SURVEY REPORT", "Cautions", "Screening calculations, not an engineering assessment",
 		"Summary", "Scope limitations", "Ranked list of CMLs", "Tank T-101", "Shell course 1", "Readings (mm)", "Results",
-		"Scope checklist", "Appendix A — Photos not linked to a CML", "Appendix B — Methods", "Appendix C — Warnings",
+		"Scope checklist", "Appendix A — Photos not placed on a CML or component", "Appendix B — Methods", "Appendix C — Warnings",
 		"AT OR BELOW REQUIRED", "below-required", "thickness-increase", "nominal-based",
 		"10.96 (11.02 10.96 11.10)",        // multi-reading cell: governing first
 		"API 570 §7.1.1", "µA/cm²", "270°", // Unicode through the embedded font
@@ -207,6 +224,8 @@ func TestEndToEndDemo(t *testing.T) {
 		"Changes since the last visit", "CROSSED THE REQUIRED", "ACCELERATING", "Rate over each interval",
 		"CMLs no longer listed", "G2-04", "Design data that changed", "Before and after", "Before: CML A-03", "Trend",
 		"testdata/demo-2022/survey.md (2022-05-10, K. Lindqvist)",
+		"Site plan", "equirectangular projection", "placed by position: nearest CML within the placement radius, 1 m",
+		"Files in the photos folder not used", "IMG_2231.HEIC", "Each year's selection is optimal",
 		"Risk", "Components by risk", "almost certain", "Repair plan", "Funded", "Deferred, with the risk they still carry",
 		"Year 1 (from 2026-11-18): budget 60 000 EUR, spent 49 200.",
 	} {
@@ -232,10 +251,11 @@ func TestEndToEndDemo(t *testing.T) {
 		t.Fatal(err)
 	}
 	lines := strings.Split(strings.TrimSpace(string(list)), "\n")
-	// Two header lines, then one line per image drawn: 6 photos linked to CMLs, 2 in the
-	// appendix, and 2 before/after pairs (each an earlier photo and a current one shown again).
-	if n := len(lines) - 2; n != 12 {
-		t.Errorf("%d images drawn in the PDF, want 12\n%s", n, list)
+	// Two header lines, then one line per image drawn: 6 photos named by CMLs, 3 placed by
+	// position (B-02, two component areas), 1 unplaced in the appendix, and 2 before/after
+	// pairs (each an earlier photo and a current one shown again).
+	if n := len(lines) - 2; n != 14 {
+		t.Errorf("%d images drawn in the PDF, want 14\n%s", n, list)
 	}
 	var res struct {
 		Items []struct {

@@ -20,7 +20,7 @@ func newRoot(stdout, stderr io.Writer) *cobra.Command {
 	root.SetOut(stdout)
 	root.SetErr(stderr)
 	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return usageError{err} })
-	root.AddCommand(newReportCmd(), newCheckCmd(), newNewCmd(), newCompareCmd(), newPlanCmd())
+	root.AddCommand(newReportCmd(), newCheckCmd(), newNewCmd(), newCompareCmd(), newPlanCmd(), newPhotosCmd())
 	for _, c := range root.Commands() {
 		c.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return usageError{err} })
 	}

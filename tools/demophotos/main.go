@@ -47,6 +47,8 @@ var shots = []shot{
 	{"demo", "line-p220/p220-b02-rack.jpg", "P-220 CML B-02 pipe rack", "2026-11-18 11:40:51", 45.601205, -61.349120, 3, 2},
 	{"demo", "bridge-fb2/fb2-g1-flange.jpg", "FB-2 girder G1 bottom flange", "2026-11-18 13:22:35", 45.600820, -61.348510, 8, 11},
 	{"demo", "overview-east.jpg", "Depot overview from east gate", "2026-11-18 08:31:00", 45.601900, -61.348200, 1, 0},
+	{"demo", "tank-t101/t101-stairway.jpg", "T-101 stairway landing", "2026-11-18 09:48:20", 45.602450, -61.350500, 1, 4},
+	{"demo", "bridge-fb2/fb2-deck.jpg", "FB-2 deck drain (camera clock wrong)", "2025-08-02 13:40:05", 45.600950, -61.348300, 1, 3},
 	// Earlier surveys of the same site, for before/after pairs.
 	{"demo-2022", "p220/a3-soil-air-2022.jpg", "P-220 CML A-3 soil-to-air 2022", "2022-05-10 10:41:13", 45.601545, -61.349880, 1, 8},
 	{"demo-2021", "fb2/g1-03-2021.jpg", "FB-2 G1-03 flange 2021", "2021-06-15 14:05:50", 45.600815, -61.348520, 1, 6},
@@ -59,6 +61,11 @@ func main() {
 		if err := write(filepath.Join(*root, s.survey, "photos"), s, uint64(i+1)); err != nil {
 			log.Fatal(err)
 		}
+	}
+	// A phone's HEIC file among the JPEGs, which lossline lists as skipped.
+	heic := filepath.Join(*root, "demo", "photos", "IMG_2231.HEIC")
+	if err := os.WriteFile(heic, []byte("\x00\x00\x00\x18ftypheic\x00\x00\x00\x00mif1heic"), 0o644); err != nil {
+		log.Fatal(err)
 	}
 }
 
