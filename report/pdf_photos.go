@@ -16,34 +16,34 @@ type photoShown struct {
 	label string // "Before" or "Now" in before/after pairs
 }
 
-// prepareAllPhotos reduces and registers every readable photo once. A photo
-// that cannot be decoded becomes a warning naming the file.
+// prepareAllPhotos reduces every photo the report shows (on all cores,
+// through the cache) and registers each once. A photo that cannot be decoded
+// becomes a warning naming the file.
 func (d *doc) prepareAllPhotos() {
+	var photos []*survey.Photo
+	var keys []string
 	for _, ph := range d.s.Photos {
-		d.preparePhoto(ph, ph.Name)
+		photos, keys = append(photos, ph), append(keys, ph.Name)
 	}
 	if h := d.s.History; h != nil {
 		for _, it := range d.items {
 			for _, ph := range h.PreviousPhotos[it.CML] {
-				d.preparePhoto(ph, ph.Name+"@before")
+				photos, keys = append(photos, ph), append(keys, ph.Name+"@before")
 			}
 		}
 	}
-}
-
-// preparePhoto reduces one photo and registers it under key.
-func (d *doc) preparePhoto(ph *survey.Photo, key string) {
-	if _, done := d.photos[key]; done {
-		return
+	for i, r := range preparePhotos(photos, d.opts.Photos) {
+		ph, key := photos[i], keys[i]
+		if _, done := d.photos[key]; done {
+			continue
+		}
+		if r.err != nil {
+			d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", r.err)
+			continue
+		}
+		d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(r.prep.JPEG))
+		d.photos[key] = &photoEntry{key: key, photo: ph, prep: r.prep}
 	}
-	e := &photoEntry{key: key, photo: ph}
-	e.prep, e.err = preparePhoto(ph.Path, ph.Orientation, d.opts.Photos)
-	if e.err != nil {
-		d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", e.err)
-		return
-	}
-	d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(e.prep.JPEG))
-	d.photos[key] = e
 }
 
 // Photo grid geometry, mm.

@@ -12,8 +12,11 @@ import (
 
 // PhotoSettings says how photos are embedded.
 type PhotoSettings struct {
-	LongSide int // pixels on the long side at most
-	Quality  int // JPEG quality 1..100
+	LongSide int    // pixels on the long side at most
+	Quality  int    // JPEG quality 1..100
+	CacheDir string // folder of reduced photos kept between runs; "" for none
+	// Progress, when set, is called after each photo with the count done.
+	Progress func(done, total int)
 }
 
 // preparedPhoto is a photo ready to embed: upright, reduced, re-encoded.
@@ -23,23 +26,34 @@ type preparedPhoto struct {
 }
 
 // preparePhoto reads a JPEG, reduces it to fit LongSide, turns it upright by
-// its EXIF orientation and encodes it again.
+// its EXIF orientation and encodes it again. Baseline 4:2:0 and 4:4:4 JPEGs
+// (what cameras and phones write) are reduced and turned on their Y, Cb and
+// Cr planes; other layouts go through RGBA.
 func preparePhoto(path string, orientation int, ps PhotoSettings) (p preparedPhoto, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			err = fmt.Errorf("cannot decode: %v", r)
 		}
 	}()
-	f, err := os.Open(path)
+	data, err := os.ReadFile(path)
 	if err != nil {
 		return p, err
 	}
-	defer f.Close()
-	src, err := jpeg.Decode(f)
+	src, err := jpeg.Decode(bytes.NewReader(data))
 	if err != nil {
 		return p, fmt.Errorf("cannot decode: %w", err)
 	}
-	img := orient(reduce(src, ps.LongSide), orientation)
+	sb := src.Bounds()
+	w, h := fitLongSide(sb.Dx(), sb.Dy(), ps.LongSide)
+	var img image.Image
+	if y, ok := src.(*image.YCbCr); ok && (y.SubsampleRatio == image.YCbCrSubsampleRatio420 || y.SubsampleRatio == image.YCbCrSubsampleRatio444) {
+		if w != sb.Dx() || h != sb.Dy() {
+			y = reduceYCbCr(y, w, h)
+		}
+		img = orientYCbCr(y, orientation)
+	} else {
+		img = orient(reduce(src, ps.LongSide), orientation)
+	}
 	var buf bytes.Buffer
 	if err := jpeg.Encode(&buf, img, &jpeg.Options{Quality: ps.Quality}); err != nil {
 		return p, err
@@ -48,13 +62,18 @@ func preparePhoto(path string, orientation int, ps PhotoSettings) (p preparedPho
 	return preparedPhoto{JPEG: buf.Bytes(), Width: b.Dx(), Height: b.Dy()}, nil
 }
 
+// fitLongSide scales w × h down (never up) so the long side is at most long.
+func fitLongSide(w, h, long int) (int, int) {
+	if l := max(w, h); l > long && long > 0 {
+		return max(1, (w*long+l/2)/l), max(1, (h*long+l/2)/l)
+	}
+	return w, h
+}
+
 // reduce scales img down (never up) so its long side is at most longSide.
 func reduce(img image.Image, longSide int) *image.RGBA {
 	b := img.Bounds()
-	w, h := b.Dx(), b.Dy()
-	if long := max(w, h); long > longSide && longSide > 0 {
-		w, h = max(1, w*longSide/long), max(1, h*longSide/long)
-	}
+	w, h := fitLongSide(b.Dx(), b.Dy(), longSide)
 	dst := image.NewRGBA(image.Rect(0, 0, w, h))
 	if w == b.Dx() && h == b.Dy() {
 		draw.Draw(dst, dst.Bounds(), img, b.Min, draw.Src)
@@ -64,7 +83,7 @@ func reduce(img image.Image, longSide int) *image.RGBA {
 	return dst
 }
 
-// orient applies an EXIF orientation (1..8) so the picture stands upright.
+// orient applies an EXIF orientation (1..8) to an RGBA image.
 func orient(src *image.RGBA, o int) *image.RGBA {
 	if o <= 1 || o > 8 {
 		return src
@@ -77,23 +96,7 @@ func orient(src *image.RGBA, o int) *image.RGBA {
 	dst := image.NewRGBA(image.Rect(0, 0, ow, oh))
 	for y := 0; y < oh; y++ {
 		for x := 0; x < ow; x++ {
-			var sx, sy int
-			switch o {
-			case 2:
-				sx, sy = w-1-x, y
-			case 3:
-				sx, sy = w-1-x, h-1-y
-			case 4:
-				sx, sy = x, h-1-y
-			case 5:
-				sx, sy = y, x
-			case 6:
-				sx, sy = y, h-1-x
-			case 7:
-				sx, sy = w-1-y, h-1-x
-			case 8:
-				sx, sy = w-1-y, x
-			}
+			sx, sy := orientSource(o, x, y, w, h)
 			si, di := src.PixOffset(sx, sy), dst.PixOffset(x, y)
 			copy(dst.Pix[di:di+4], src.Pix[si:si+4])
 		}

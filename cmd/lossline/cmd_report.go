@@ -23,6 +23,7 @@ func newReportCmd() *cobra.Command {
 		RunE: runReport,
 	}
 	c.Flags().StringP("out", "o", "", "output `OUTDIR` (default SURVEY/report)")
+	c.Flags().Bool("no-photo-cache", false, "reduce every photo again instead of reusing the cache in the user cache folder")
 	c.Flags().StringSlice("previous", nil, "earlier survey `DIR`s whose readings merge in (besides the front matter's previous:)")
 	addSettingFlags(c)
 	return c
@@ -48,11 +49,10 @@ func runReport(c *cobra.Command, args []string) error {
 		fmt.Fprintln(stderr, p)
 	}
 	items := survey.Assess(s, set.Policy)
-	if len(s.Photos) > 0 {
-		fmt.Fprintf(stderr, "preparing %d photos...\n", len(s.Photos))
-	}
+	photos := set.Photos
+	photos.Progress = progressBar(stderr, "photos")
 	files, warnings, err := report.Render(s, items, report.Options{
-		Policy: set.Policy, Display: set.Display, AccelerationPct: set.AccelerationPct, Plan: set.Plan, Place: set.Read.Place, Photos: set.Photos, Templates: set.Templates, Created: time.Now(), Version: version,
+		Policy: set.Policy, Display: set.Display, AccelerationPct: set.AccelerationPct, Plan: set.Plan, Place: set.Read.Place, Photos: photos, Templates: set.Templates, Created: time.Now(), Version: version,
 	})
 	if err != nil {
 		return err

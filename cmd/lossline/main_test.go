@@ -11,6 +11,25 @@ import (
 	"testing"
 )
 
+// TestMain keeps the tests' photo cache out of the user's cache folder.
+func TestMain(m *testing.M) {
+	dir, err := os.MkdirTemp("", "lossline-cache-")
+	if err != nil {
+		panic(err)
+	}
+	// The go command's build cache lives under the user cache folder too: pin
+	// it first, so building the binary in the end-to-end test stays fast.
+	if os.Getenv("GOCACHE") == "" {
+		if out, err := exec.Command("go", "env", "GOCACHE").Output(); err == nil {
+			os.Setenv("GOCACHE", strings.TrimSpace(string(out)))
+		}
+	}
+	os.Setenv("XDG_CACHE_HOME", dir)
+	code := m.Run()
+	os.RemoveAll(dir)
+	os.Exit(code)
+}
+
 func runCLI(t *testing.T, args ...string) (int, string, string) {
 	t.Helper()
 	var out, errb bytes.Buffer
@@ -195,9 +214,16 @@ func TestEndToEndDemo(t *testing.T) {
 		t.Fatalf("build: %v\n%s", err, out)
 	}
 	out := t.TempDir()
+	cache := t.TempDir()
 	cmd := exec.Command(bin, "report", "../../testdata/demo", "-o", out)
+	cmd.Env = append(os.Environ(), "XDG_CACHE_HOME="+cache)
 	if b, err := cmd.CombinedOutput(); err != nil {
 		t.Fatalf("report: %v\n%s", err, b)
+	}
+	// XDG_CACHE_HOME moves the photo cache (os.UserCacheDir): one file per reduced photo.
+	cached, _ := filepath.Glob(filepath.Join(cache, "lossline", "photos", "*", "*.jpg"))
+	if len(cached) != 12 {
+		t.Errorf("%d photos in the cache, want 12 (10 of this survey, 2 earlier ones)", len(cached))
 	}
 	for _, f := range []string{"report.pdf", "results.json", "results.csv", "locations.geojson"} {
 		if st, err := os.Stat(filepath.Join(out, f)); err != nil || st.Size() == 0 {

@@ -182,6 +182,11 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 		s.Display.Rate = r
 	}
 	s.Photos = report.PhotoSettings{LongSide: v.GetInt(keyLongSide), Quality: v.GetInt(keyQuality)}
+	if off, _ := c.Flags().GetBool("no-photo-cache"); !off {
+		if dir, err := os.UserCacheDir(); err == nil { // XDG_CACHE_HOME moves it
+			s.Photos.CacheDir = filepath.Join(dir, "lossline", "photos")
+		}
+	}
 	if t := v.GetString(keyTemplates); t != "" {
 		if !filepath.IsAbs(t) && templatesBase != "" && !c.Flags().Changed(keyTemplates) && os.Getenv("LOSSLINE_TEMPLATES") == "" {
 			t = filepath.Join(templatesBase, t)

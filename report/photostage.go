@@ -1,0 +1,101 @@
+package report
+
+import (
+	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
+	"fmt"
+	"image/jpeg"
+	"os"
+	"path/filepath"
+	"runtime"
+	"sync"
+
+	"github.com/lossline/lossline/survey"
+)
+
+// photoResult is one photo after the photo stage.
+type photoResult struct {
+	prep   preparedPhoto
+	err    error
+	cached bool
+}
+
+// preparePhotos reduces photos on all cores. Each worker holds one decoded
+// image at a time, so memory does not grow with the number of photos; the
+// results are the small re-encoded JPEGs. With a cache folder, a photo whose
+// content and settings were seen before is read back instead.
+func preparePhotos(photos []*survey.Photo, ps PhotoSettings) []photoResult {
+	out := make([]photoResult, len(photos))
+	workers := min(runtime.GOMAXPROCS(0), max(len(photos), 1))
+	jobs := make(chan int)
+	var wg sync.WaitGroup
+	var mu sync.Mutex
+	done := 0
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range jobs {
+				out[i] = prepareCached(photos[i], ps)
+				if ps.Progress != nil {
+					mu.Lock()
+					done++
+					ps.Progress(done, len(photos))
+					mu.Unlock()
+				}
+			}
+		}()
+	}
+	for i := range photos {
+		jobs <- i
+	}
+	close(jobs)
+	wg.Wait()
+	return out
+}
+
+// cacheVersion changes whenever the reduction changes what it writes.
+const cacheVersion = "planar-catmull-rom-1"
+
+// cacheKey names a reduced photo by the original's content and every setting
+// that shapes the result.
+func cacheKey(ph *survey.Photo, ps PhotoSettings) string {
+	sum := sha256.Sum256([]byte(fmt.Sprintf("%s|%s|%d|%d|%d", cacheVersion, ph.Hash, ph.Orientation, ps.LongSide, ps.Quality)))
+	return hex.EncodeToString(sum[:])
+}
+
+func prepareCached(ph *survey.Photo, ps PhotoSettings) photoResult {
+	if ps.CacheDir == "" || ph.Hash == "" {
+		p, err := preparePhoto(ph.Path, ph.Orientation, ps)
+		return photoResult{prep: p, err: err}
+	}
+	key := cacheKey(ph, ps)
+	path := filepath.Join(ps.CacheDir, key[:2], key+".jpg")
+	if data, err := os.ReadFile(path); err == nil {
+		if cfg, err := jpeg.DecodeConfig(bytes.NewReader(data)); err == nil {
+			return photoResult{prep: preparedPhoto{JPEG: data, Width: cfg.Width, Height: cfg.Height}, cached: true}
+		}
+	}
+	p, err := preparePhoto(ph.Path, ph.Orientation, ps)
+	if err == nil {
+		storeCached(path, p.JPEG) // a cache that cannot be written only costs time
+	}
+	return photoResult{prep: p, err: err}
+}
+
+// storeCached writes a cache entry atomically (temporary file, then rename).
+func storeCached(path string, data []byte) {
+	if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+		return
+	}
+	tmp, err := os.CreateTemp(filepath.Dir(path), ".tmp-*")
+	if err != nil {
+		return
+	}
+	_, werr := tmp.Write(data)
+	cerr := tmp.Close()
+	if werr != nil || cerr != nil || os.Rename(tmp.Name(), path) != nil {
+		os.Remove(tmp.Name())
+	}
+}

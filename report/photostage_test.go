@@ -1,0 +1,125 @@
+package report
+
+import (
+	"bytes"
+	"image"
+	"image/color"
+	"image/jpeg"
+	"math"
+	"os"
+	"path/filepath"
+	"testing"
+
+	"golang.org/x/image/draw"
+
+	"github.com/lossline/lossline/survey"
+)
+
+// testPhoto writes a w × h JPEG (4:2:0, as cameras write) of smooth colour
+// gradients and returns its survey.Photo.
+func testPhoto(t testing.TB, dir, name string, w, h, orientation int) *survey.Photo {
+	img := image.NewRGBA(image.Rect(0, 0, w, h))
+	for y := 0; y < h; y++ {
+		for x := 0; x < w; x++ {
+			img.SetRGBA(x, y, color.RGBA{uint8(255 * x / w), uint8(255 * y / h), uint8(128 + 100*math.Sin(float64(x+y)/97)), 255})
+		}
+	}
+	var b bytes.Buffer
+	if err := jpeg.Encode(&b, img, &jpeg.Options{Quality: 90}); err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(dir, name)
+	os.WriteFile(path, b.Bytes(), 0o644)
+	return &survey.Photo{Name: name, Path: path, Orientation: orientation, Hash: name}
+}
+
+// The planar reduction against x/image/draw's Catmull-Rom on the whole RGBA
+// image (an independent resampler): the same picture within a few levels.
+func TestPlanarReductionMatchesDraw(t *testing.T) {
+	dir := t.TempDir()
+	ph := testPhoto(t, dir, "a.jpg", 2000, 1500, 1)
+	got, err := preparePhoto(ph.Path, 1, PhotoSettings{LongSide: 800, Quality: 95})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got.Width != 800 || got.Height != 600 {
+		t.Fatalf("size %d×%d, want 800×600", got.Width, got.Height)
+	}
+	f, _ := os.Open(ph.Path)
+	src, _ := jpeg.Decode(f)
+	f.Close()
+	ref := image.NewRGBA(image.Rect(0, 0, 800, 600))
+	draw.CatmullRom.Scale(ref, ref.Bounds(), src, src.Bounds(), draw.Src, nil)
+	mine, _ := jpeg.Decode(bytes.NewReader(got.JPEG))
+	var sum float64
+	for y := 0; y < 600; y += 3 {
+		for x := 0; x < 800; x += 3 {
+			r1, g1, b1, _ := mine.At(x, y).RGBA()
+			r2, g2, b2, _ := ref.At(x, y).RGBA()
+			sum += math.Abs(float64(r1)-float64(r2)) + math.Abs(float64(g1)-float64(g2)) + math.Abs(float64(b1)-float64(b2))
+		}
+	}
+	if mean := sum / (3 * 200 * 267) / 257; mean > 3 {
+		t.Errorf("mean difference %.2f levels from x/image/draw's Catmull-Rom", mean)
+	}
+}
+
+// Orientation 1-8 each turned upright on the planes: a 4:2:0 picture whose
+// top-left quarter is bright red must end with red in the corner the EXIF
+// table names (CIPA DC-008, tag 0x0112).
+func TestOrientPlanes(t *testing.T) {
+	img := image.NewRGBA(image.Rect(0, 0, 64, 32))
+	for y := 0; y < 32; y++ {
+		for x := 0; x < 64; x++ {
+			c := color.RGBA{0, 0, 255, 255}
+			if x < 16 && y < 8 {
+				c = color.RGBA{255, 0, 0, 255}
+			}
+			img.SetRGBA(x, y, c)
+		}
+	}
+	var b bytes.Buffer
+	jpeg.Encode(&b, img, &jpeg.Options{Quality: 95})
+	src, _ := jpeg.Decode(&b)
+	ycc := src.(*image.YCbCr)
+	for o, corner := range map[int][2]int{1: {0, 0}, 2: {1, 0}, 3: {1, 1}, 4: {0, 1}, 5: {0, 0}, 6: {1, 0}, 7: {1, 1}, 8: {0, 1}} {
+		out := orientYCbCr(ycc, o)
+		bw, bh := out.Bounds().Dx(), out.Bounds().Dy()
+		if (o >= 5) != (bw == 32) {
+			t.Errorf("orientation %d: size %d×%d", o, bw, bh)
+		}
+		x, y := 2+corner[0]*(bw-5), 2+corner[1]*(bh-5)
+		r, g, bl, _ := out.At(x, y).RGBA()
+		if r>>8 < 200 || g>>8 > 60 || bl>>8 > 60 {
+			t.Errorf("orientation %d: pixel (%d,%d) is %d,%d,%d, want red", o, x, y, r>>8, g>>8, bl>>8)
+		}
+	}
+}
+
+// The cache: a second run reads the same bytes back; other settings miss.
+func TestPhotoCache(t *testing.T) {
+	dir, cache := t.TempDir(), t.TempDir()
+	photos := []*survey.Photo{testPhoto(t, dir, "a.jpg", 900, 600, 6), testPhoto(t, dir, "b.jpg", 600, 900, 1)}
+	ps := PhotoSettings{LongSide: 400, Quality: 80, CacheDir: cache}
+	first := preparePhotos(photos, ps)
+	second := preparePhotos(photos, ps)
+	for i := range photos {
+		if first[i].err != nil || first[i].cached || !second[i].cached || !bytes.Equal(first[i].prep.JPEG, second[i].prep.JPEG) {
+			t.Errorf("photo %d: first cached %v, second cached %v, equal %v", i, first[i].cached, second[i].cached,
+				bytes.Equal(first[i].prep.JPEG, second[i].prep.JPEG))
+		}
+	}
+	if r := first[0].prep; r.Width != 267 || r.Height != 400 {
+		t.Errorf("orientation 6: %d×%d, want 267×400", r.Width, r.Height)
+	}
+	ps.Quality = 70
+	if again := preparePhotos(photos, ps); again[0].cached {
+		t.Error("a different quality hit the cache")
+	}
+	var calls int
+	ps.Progress = func(done, total int) { calls++ }
+	preparePhotos(photos, ps)
+	if calls != 2 {
+		t.Errorf("progress called %d times, want 2", calls)
+	}
+}
