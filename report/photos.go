@@ -39,8 +39,10 @@ func preparePhoto(path string, orientation int, ps PhotoSettings) (p preparedPho
 	if err != nil {
 		return p, err
 	}
-	src, err := jpeg.Decode(bytes.NewReader(data))
-	if err != nil {
+	var src image.Image
+	if y, ok := fastDecode(data, ps.LongSide); ok {
+		src = y
+	} else if src, err = jpeg.Decode(bytes.NewReader(data)); err != nil {
 		return p, fmt.Errorf("cannot decode: %w", err)
 	}
 	sb := src.Bounds()
@@ -54,11 +56,16 @@ func preparePhoto(path string, orientation int, ps PhotoSettings) (p preparedPho
 	} else {
 		img = orient(reduce(src, ps.LongSide), orientation)
 	}
+	b := img.Bounds()
+	if y, ok := img.(*image.YCbCr); ok {
+		if out, ok := fastEncode(y, ps.Quality); ok {
+			return preparedPhoto{JPEG: out, Width: b.Dx(), Height: b.Dy()}, nil
+		}
+	}
 	var buf bytes.Buffer
 	if err := jpeg.Encode(&buf, img, &jpeg.Options{Quality: ps.Quality}); err != nil {
 		return p, err
 	}
-	b := img.Bounds()
 	return preparedPhoto{JPEG: buf.Bytes(), Width: b.Dx(), Height: b.Dy()}, nil
 }
 

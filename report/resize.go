@@ -99,24 +99,52 @@ func (p plane) resize(w, h int) plane {
 		return p
 	}
 	hw, vw := resampleWeights(p.w, w), resampleWeights(p.h, h)
-	tmp := make([]float32, w*p.h) // horizontal pass
-	for y := 0; y < p.h; y++ {
-		row := p.pix[y*p.stride:]
-		out := tmp[y*w:]
-		for x := 0; x < w; x++ {
-			var s float32
-			for k, t := range hw.taps[x] {
-				s += t * float32(row[clampIndex(hw.start[x]+k, p.w)])
-			}
-			out[x] = s
+	// Flatten the horizontal taps with their source columns clamped once.
+	var cols []int32
+	var taps []float32
+	span := make([]int32, w+1)
+	for x := 0; x < w; x++ {
+		for k, t := range hw.taps[x] {
+			cols = append(cols, int32(clampIndex(hw.start[x]+k, p.w)))
+			taps = append(taps, t)
 		}
+		span[x+1] = int32(len(cols))
+	}
+	// Horizontally filtered rows are made when the vertical pass first needs
+	// them and kept in a small ring: the passes never hold a whole image.
+	ringN := 0
+	for _, t := range vw.taps {
+		ringN = max(ringN, len(t))
+	}
+	ringN++
+	ring := make([]float32, ringN*w)
+	ringRow := make([]int, ringN)
+	for i := range ringRow {
+		ringRow[i] = -1
+	}
+	hrow := func(sy int) []float32 {
+		slot := sy % ringN
+		buf := ring[slot*w : (slot+1)*w]
+		if ringRow[slot] == sy {
+			return buf
+		}
+		ringRow[slot] = sy
+		row := p.pix[sy*p.stride : sy*p.stride+p.w]
+		for x := range buf {
+			var s float32
+			for k := span[x]; k < span[x+1]; k++ {
+				s += taps[k] * float32(row[cols[k]])
+			}
+			buf[x] = s
+		}
+		return buf
 	}
 	out := plane{pix: make([]uint8, w*h), w: w, h: h, stride: w}
 	acc := make([]float32, w)
 	for y := 0; y < h; y++ {
 		clear(acc)
 		for k, t := range vw.taps[y] {
-			row := tmp[clampIndex(vw.start[y]+k, p.h)*w:][:w]
+			row := hrow(clampIndex(vw.start[y]+k, p.h))
 			for x, v := range row {
 				acc[x] += t * v
 			}
