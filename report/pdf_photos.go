@@ -32,18 +32,19 @@ func (d *doc) prepareAllPhotos() {
 			}
 		}
 	}
-	for i, r := range preparePhotos(photos, d.opts.Photos) {
+	preparePhotos(photos, d.opts.Photos, func(i int, r photoResult) {
 		ph, key := photos[i], keys[i]
 		if _, done := d.photos[key]; done {
-			continue
+			return
 		}
 		if r.err != nil {
 			d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", r.err)
-			continue
+			return
 		}
 		d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(r.prep.JPEG))
-		d.photos[key] = &photoEntry{key: key, photo: ph, prep: r.prep}
-	}
+		// fpdf keeps its own copy of the bytes; the entry keeps only the size.
+		d.photos[key] = &photoEntry{key: key, photo: ph, prep: preparedPhoto{Width: r.prep.Width, Height: r.prep.Height}}
+	})
 }
 
 // Photo grid geometry, mm.

@@ -21,38 +21,51 @@ type photoResult struct {
 	cached bool
 }
 
-// preparePhotos reduces photos on all cores. Each worker holds one decoded
-// image at a time, so memory does not grow with the number of photos; the
-// results are the small re-encoded JPEGs. With a cache folder, a photo whose
-// content and settings were seen before is read back instead.
-func preparePhotos(photos []*survey.Photo, ps PhotoSettings) []photoResult {
-	out := make([]photoResult, len(photos))
+// preparePhotos reduces photos on all cores and hands each result to use, in
+// input order, as soon as it and all before it are done. Each worker holds one
+// decoded image at a time and results are not kept here, so memory does not
+// grow with the number of photos. With a cache folder, a photo whose content
+// and settings were seen before is read back instead.
+func preparePhotos(photos []*survey.Photo, ps PhotoSettings, use func(i int, r photoResult)) {
 	workers := min(runtime.GOMAXPROCS(0), max(len(photos), 1))
 	jobs := make(chan int)
+	type done struct {
+		i int
+		r photoResult
+	}
+	results := make(chan done, workers)
 	var wg sync.WaitGroup
-	var mu sync.Mutex
-	done := 0
 	for w := 0; w < workers; w++ {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				out[i] = prepareCached(photos[i], ps)
-				if ps.Progress != nil {
-					mu.Lock()
-					done++
-					ps.Progress(done, len(photos))
-					mu.Unlock()
-				}
+				results <- done{i, prepareCached(photos[i], ps)}
 			}
 		}()
 	}
-	for i := range photos {
-		jobs <- i
+	go func() {
+		for i := range photos {
+			jobs <- i
+		}
+		close(jobs)
+		wg.Wait()
+		close(results)
+	}()
+	pending := map[int]photoResult{}
+	next, count := 0, 0
+	for d := range results {
+		count++
+		if ps.Progress != nil {
+			ps.Progress(count, len(photos))
+		}
+		pending[d.i] = d.r
+		for r, ok := pending[next]; ok; r, ok = pending[next] {
+			use(next, r)
+			delete(pending, next)
+			next++
+		}
 	}
-	close(jobs)
-	wg.Wait()
-	return out
 }
 
 // cacheVersion changes whenever the reduction changes what it writes.

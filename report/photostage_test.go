@@ -101,8 +101,7 @@ func TestPhotoCache(t *testing.T) {
 	dir, cache := t.TempDir(), t.TempDir()
 	photos := []*survey.Photo{testPhoto(t, dir, "a.jpg", 900, 600, 6), testPhoto(t, dir, "b.jpg", 600, 900, 1)}
 	ps := PhotoSettings{LongSide: 400, Quality: 80, CacheDir: cache}
-	first := preparePhotos(photos, ps)
-	second := preparePhotos(photos, ps)
+	first, second := collect(photos, ps), collect(photos, ps)
 	for i := range photos {
 		if first[i].err != nil || first[i].cached || !second[i].cached || !bytes.Equal(first[i].prep.JPEG, second[i].prep.JPEG) {
 			t.Errorf("photo %d: first cached %v, second cached %v, equal %v", i, first[i].cached, second[i].cached,
@@ -113,13 +112,25 @@ func TestPhotoCache(t *testing.T) {
 		t.Errorf("orientation 6: %d×%d, want 267×400", r.Width, r.Height)
 	}
 	ps.Quality = 70
-	if again := preparePhotos(photos, ps); again[0].cached {
+	if again := collect(photos, ps); again[0].cached {
 		t.Error("a different quality hit the cache")
 	}
 	var calls int
 	ps.Progress = func(done, total int) { calls++ }
-	preparePhotos(photos, ps)
+	collect(photos, ps)
 	if calls != 2 {
 		t.Errorf("progress called %d times, want 2", calls)
 	}
+}
+
+// collect runs the photo stage and keeps every result, in order.
+func collect(photos []*survey.Photo, ps PhotoSettings) []photoResult {
+	out := make([]photoResult, 0, len(photos))
+	preparePhotos(photos, ps, func(i int, r photoResult) {
+		if i != len(out) {
+			panic("results out of order")
+		}
+		out = append(out, r)
+	})
+	return out
 }

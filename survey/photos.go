@@ -10,8 +10,10 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"runtime"
 	"sort"
 	"strings"
+	"sync"
 	"time"
 
 	"github.com/rwcarlsen/goexif/exif"
@@ -30,15 +32,14 @@ const DefaultMaxMegapixels = 200
 // than maxMP megapixels, or repeat another file's content are listed as
 // skipped with the reason; a missing folder is no problem.
 func ScanPhotos(dir string, maxMP float64) ([]*Photo, []SkippedFile, ProblemList) {
-	var photos []*Photo
 	var skipped []SkippedFile
 	var problems ProblemList
-	byHash := map[string]*Photo{}
 	root := filepath.Join(dir, PhotoDir)
 	skip := func(name, path, why string) {
 		skipped = append(skipped, SkippedFile{Name: name, Path: path, Reason: why})
 		problems.Warnf(path, 0, "skipped: %s", why)
 	}
+	var names, paths []string
 	err := filepath.WalkDir(root, func(path string, d fs.DirEntry, err error) error {
 		if err != nil {
 			if path == root && os.IsNotExist(err) {
@@ -56,40 +57,84 @@ func ScanPhotos(dir string, maxMP float64) ([]*Photo, []SkippedFile, ProblemList
 			skip(name, path, why)
 			return nil
 		}
-		data, err := os.ReadFile(path)
-		if err != nil {
-			skip(name, path, "cannot be read: "+err.Error())
-			return nil
-		}
-		sum := sha256.Sum256(data)
-		hash := hex.EncodeToString(sum[:])
-		if first, dup := byHash[hash]; dup {
-			skip(name, path, "same content as "+first.Name)
-			return nil
-		}
-		cfg, err := jpeg.DecodeConfig(bytes.NewReader(data))
-		if err != nil {
-			skip(name, path, "not a readable JPEG: "+err.Error())
-			return nil
-		}
-		if mp := float64(cfg.Width) * float64(cfg.Height) / 1e6; mp > maxMP {
-			skip(name, path, fmt.Sprintf("%d×%d pixels (%.0f MP) is over the %g MP limit", cfg.Width, cfg.Height, mp, maxMP))
-			return nil
-		}
-		p := &Photo{Name: name, Path: path, Orientation: 1, Hash: hash, Width: cfg.Width, Height: cfg.Height}
-		if err := readEXIF(p, bytes.NewReader(data)); err != nil {
-			p.Problem = err.Error()
-			problems.Warnf(path, 0, "photo header cannot be read (%v): shown without time and position", err)
-		}
-		byHash[hash] = p
-		photos = append(photos, p)
+		names, paths = append(names, name), append(paths, path)
 		return nil
 	})
 	if err != nil {
 		problems.Warnf(root, 0, "cannot read the photo folder: %v", err)
 	}
+	// Read, hash and parse the headers on all cores; decide in walk order.
+	scans := make([]photoScan, len(paths))
+	var wg sync.WaitGroup
+	next := make(chan int)
+	for w := 0; w < runtime.GOMAXPROCS(0); w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				scans[i] = scanPhoto(names[i], paths[i], maxMP)
+			}
+		}()
+	}
+	for i := range paths {
+		next <- i
+	}
+	close(next)
+	wg.Wait()
+	var photos []*Photo
+	byHash := map[string]*Photo{}
+	for i, sc := range scans {
+		switch {
+		case sc.skip != "":
+			skip(names[i], paths[i], sc.skip)
+		case byHash[sc.photo.Hash] != nil:
+			skip(names[i], paths[i], "same content as "+byHash[sc.photo.Hash].Name)
+		default:
+			if sc.photo.Problem != "" {
+				problems.Warnf(paths[i], 0, "photo header cannot be read (%s): shown without time and position", sc.photo.Problem)
+			}
+			byHash[sc.photo.Hash] = sc.photo
+			photos = append(photos, sc.photo)
+		}
+	}
 	sort.Slice(photos, func(i, j int) bool { return photos[i].Name < photos[j].Name })
 	return photos, skipped, problems
+}
+
+// photoScan is what reading one file found: a photo, or why it is skipped.
+type photoScan struct {
+	photo *Photo
+	skip  string
+}
+
+func scanPhoto(name, path string, maxMP float64) photoScan {
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return photoScan{skip: "cannot be read: " + err.Error()}
+	}
+	return scanData(name, path, data, maxMP)
+}
+
+// scanData reads a photo's header from its bytes; it never panics.
+func scanData(name, path string, data []byte, maxMP float64) (sc photoScan) {
+	defer func() {
+		if r := recover(); r != nil {
+			sc = photoScan{skip: fmt.Sprintf("damaged file: %v", r)}
+		}
+	}()
+	sum := sha256.Sum256(data)
+	cfg, err := jpeg.DecodeConfig(bytes.NewReader(data))
+	if err != nil {
+		return photoScan{skip: "not a readable JPEG: " + err.Error()}
+	}
+	if mp := float64(cfg.Width) * float64(cfg.Height) / 1e6; mp > maxMP {
+		return photoScan{skip: fmt.Sprintf("%d×%d pixels (%.0f MP) is over the %g MP limit", cfg.Width, cfg.Height, mp, maxMP)}
+	}
+	p := &Photo{Name: name, Path: path, Orientation: 1, Hash: hex.EncodeToString(sum[:]), Width: cfg.Width, Height: cfg.Height}
+	if err := readEXIF(p, bytes.NewReader(data)); err != nil {
+		p.Problem = err.Error()
+	}
+	return photoScan{photo: p}
 }
 
 // notPhoto says why a file is not taken as a photo, or "" when it may be one.

@@ -28,9 +28,13 @@ func Encode(img image.Image, quality int, h Header) ([]byte, error) {
 	if err := jpeg.Encode(&buf, img, &jpeg.Options{Quality: quality}); err != nil {
 		return nil, err
 	}
-	plain := buf.Bytes()
+	return WithHeader(buf.Bytes(), h)
+}
+
+// WithHeader inserts the EXIF header h into a JPEG that has none.
+func WithHeader(plain []byte, h Header) ([]byte, error) {
 	if len(plain) < 2 || plain[0] != 0xFF || plain[1] != 0xD8 {
-		return nil, fmt.Errorf("encoder wrote no JPEG start marker")
+		return nil, fmt.Errorf("no JPEG start marker")
 	}
 	app1 := append([]byte("Exif\x00\x00"), tiff(h)...)
 	out := []byte{0xFF, 0xD8, 0xFF, 0xE1}
