@@ -13,6 +13,9 @@ func (d *doc) methods() error {
 		"PhotoLongSide":    d.opts.Photos.LongSide,
 		"ToleranceMM":      d.opts.Policy.ToleranceMM,
 		"AccelerationPct":  d.opts.AccelerationPct,
+		"AutoPlace":        d.opts.Place.Auto,
+		"RadiusM":          d.opts.Place.RadiusM,
+		"AreaRadiusM":      d.opts.Place.AreaRadiusM,
 		"Flags":            flagMeanings,
 	})
 	if err != nil {

@@ -114,10 +114,17 @@ func (d *doc) caption(s photoShown) string {
 		taken = "taken " + ph.Taken.Format("2006-01-02 15:04")
 	}
 	text := fmt.Sprintf("%s · %s\n%s · %s", who, ph.Name, taken, latLon(ph.GPS))
-	if s.label == "" && pl.Basis != "" && pl.Basis != survey.PlacedNamed {
+	switch {
+	case s.label != "" || pl.Basis == "" || pl.Basis == survey.PlacedNamed:
+	case pl.Placed():
 		text += "\nplaced by position: " + pl.Words()
 		if pl.DistanceM != nil {
 			text += fmt.Sprintf(", %.0f m", *pl.DistanceM)
+		}
+	default:
+		text += "\n" + pl.Words()
+		if pl.DistanceM != nil {
+			text += fmt.Sprintf(" (nearest CML %.0f m away)", *pl.DistanceM)
 		}
 	}
 	return text
@@ -139,9 +146,9 @@ func (d *doc) unlinkedPhotos() {
 	if len(shown) == 0 {
 		d.text("Every photo is placed on a CML or component.")
 	} else {
-		d.text(fmt.Sprintf("%d photos are neither named in a reading table nor close enough to a CML or component to be placed "+
+		d.text(fmt.Sprintf("%s neither named in a reading table nor close enough to a CML or component to be placed "+
 			"on one (placement radius %g m, area margin %g m). Each caption says where the photo was placed, if anywhere, and why.",
-			len(shown), d.opts.Place.RadiusM, d.opts.Place.AreaRadiusM))
+			map[bool]string{true: "1 photo is", false: fmt.Sprintf("%d photos are", len(shown))}[len(shown) == 1], d.opts.Place.RadiusM, d.opts.Place.AreaRadiusM))
 		d.pdf.Ln(2)
 		d.photoGrid(shown)
 	}

@@ -35,6 +35,7 @@ func testOptions() Options {
 	return Options{
 		Policy:          wallloss.DefaultPolicy,
 		AccelerationPct: 25,
+		Place:           survey.DefaultPlaceOptions,
 		Photos:          PhotoSettings{LongSide: 1600, Quality: 80},
 		Created:         time.Date(2026, 11, 20, 9, 0, 0, 0, time.UTC),
 		Version:         "test",
