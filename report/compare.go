@@ -2,10 +2,8 @@ package report
 
 import (
 	"bytes"
-	"encoding/csv"
 	"fmt"
 	"strings"
-	"text/tabwriter"
 
 	"github.com/lossline/lossline/survey"
 )
@@ -44,31 +42,18 @@ func Comparison(s *survey.Survey, changes []survey.Change, disp Display, asCSV b
 			}
 		}
 	}
-	var b bytes.Buffer
-	if asCSV {
-		w := csv.NewWriter(&b)
-		_ = w.Write(header)
-		_ = w.WriteAll(rows)
-		return b.Bytes(), w.Error()
+	out, err := textTable(header, rows, asCSV)
+	if err != nil || asCSV {
+		return out, err
 	}
-	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, strings.ToUpper(strings.Join(header, "\t")))
-	for _, row := range rows {
-		for i, v := range row {
-			if v == "" {
-				row[i] = "-"
-			}
-		}
-		fmt.Fprintln(tw, strings.Join(row, "\t"))
-	}
-	tw.Flush()
+	b := bytes.NewBuffer(out)
 	if h := s.History; h != nil {
 		for _, x := range h.Dropped {
-			fmt.Fprintf(&b, "\nno longer listed: CML %s (%s / %s), last read %s at %s %s, %s:%d", x.ID, x.Asset, x.Component,
+			fmt.Fprintf(b, "\nno longer listed: CML %s (%s / %s), last read %s at %s %s, %s:%d", x.ID, x.Asset, x.Component,
 				x.Last.Date, u.u.Format(x.Last.Governing()), tu, x.Last.File, x.Last.Line)
 		}
 		for _, x := range h.DesignChanges {
-			fmt.Fprintf(&b, "\ndesign change: %s / %s %s thickness %s -> %s %s (was at %s:%d)", x.Asset, x.Component, x.Field,
+			fmt.Fprintf(b, "\ndesign change: %s / %s %s thickness %s -> %s %s (was at %s:%d)", x.Asset, x.Component, x.Field,
 				u.thick(&x.OldMM), u.thick(&x.NewMM), tu, x.OldFile, x.OldLine)
 		}
 		if len(h.Dropped)+len(h.DesignChanges) > 0 {

@@ -1,11 +1,7 @@
 package report
 
 import (
-	"bytes"
-	"encoding/csv"
 	"fmt"
-	"strings"
-	"text/tabwriter"
 
 	"github.com/lossline/lossline/survey"
 )
@@ -36,25 +32,7 @@ func PhotoList(s *survey.Survey, asCSV bool) ([]byte, error) {
 	for _, sk := range s.Skipped {
 		rows = append(rows, []string{sk.Name, "", "", "", "", "", "", "skipped: " + sk.Reason})
 	}
-	var b bytes.Buffer
-	if asCSV {
-		w := csv.NewWriter(&b)
-		_ = w.Write(header)
-		_ = w.WriteAll(rows)
-		return b.Bytes(), w.Error()
-	}
-	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, strings.ToUpper(strings.Join(header, "\t")))
-	for _, r := range rows {
-		for i := range r {
-			if r[i] == "" {
-				r[i] = "-"
-			}
-		}
-		fmt.Fprintln(tw, strings.Join(r, "\t"))
-	}
-	tw.Flush()
-	return b.Bytes(), nil
+	return textTable(header, rows, asCSV)
 }
 
 // placedOn names what a photo was placed on: "CML A-03", "Tank T-101 / Shell course 1", "Tank T-101".

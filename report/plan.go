@@ -2,12 +2,10 @@ package report
 
 import (
 	"bytes"
-	"encoding/csv"
 	"fmt"
 	"slices"
 	"strconv"
 	"strings"
-	"text/tabwriter"
 	"time"
 
 	"github.com/lossline/lossline/survey/plan"
@@ -138,26 +136,16 @@ func PlanText(p plan.Plan, noCost []plan.NoCost, currency string, asCSV bool) ([
 			rows[i] = append(r[:1], r[2:]...)
 		}
 	}
-	var b bytes.Buffer
 	if asCSV {
-		w := csv.NewWriter(&b)
 		h[slices.Index(h, "cost")] = "cost_" + strings.ReplaceAll(strings.ToLower(currency), " ", "_")
-		_ = w.Write(h)
-		_ = w.WriteAll(rows)
-		return b.Bytes(), w.Error()
+		return textTable(h, rows, true)
 	}
-	tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', 0)
 	h[slices.Index(h, "cost")] = "cost (" + currency + ")"
-	fmt.Fprintln(tw, strings.ToUpper(strings.Join(h, "\t")))
-	for _, r := range rows {
-		for i := range r {
-			if r[i] == "" {
-				r[i] = "-"
-			}
-		}
-		fmt.Fprintln(tw, strings.Join(r, "\t"))
+	out, err := textTable(h, rows, false)
+	if err != nil {
+		return nil, err
 	}
-	tw.Flush()
+	b := bytes.NewBuffer(out)
 	b.WriteString("\n")
 	for _, n := range planNotes(p, noCost, currency) {
 		b.WriteString(n + "\n")
