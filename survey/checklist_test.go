@@ -82,13 +82,7 @@ func TestFrontMatterProblems(t *testing.T) {
 			`survey.md:10: gps "95.1, 3" is not`},
 	} {
 		_, problems := ParseChecklist("survey.md", []byte(c.src))
-		found := false
-		for _, p := range problems {
-			found = found || strings.HasPrefix(p.String(), c.want)
-		}
-		if !found {
-			t.Errorf("%s: problems %v lack %q", c.name, problems, c.want)
-		}
+		wantProblem(t, c.name, problems, c.want)
 	}
 }
 
@@ -239,13 +233,7 @@ func TestDesignProblems(t *testing.T) {
 	} {
 		src := head + c.list + "\n| CML | 2024-01-01 |\n|---|---|\n| A | 9 |\n"
 		_, problems := ParseChecklist("survey.md", []byte(src))
-		found := false
-		for _, p := range problems {
-			found = found || strings.HasPrefix(p.String(), c.want)
-		}
-		if !found {
-			t.Errorf("%s: problems %v lack %q", c.name, problems, c.want)
-		}
+		wantProblem(t, c.name, problems, c.want)
 	}
 }
 
@@ -304,4 +292,15 @@ func TestParseAmount(t *testing.T) {
 			t.Errorf("ParseAmount(%q): no error", bad)
 		}
 	}
+}
+
+// wantProblem fails unless a problem starts with want.
+func wantProblem(t *testing.T, name string, problems ProblemList, want string) {
+	t.Helper()
+	for _, p := range problems {
+		if strings.HasPrefix(p.String(), want) {
+			return
+		}
+	}
+	t.Errorf("%s: problems %v lack %q", name, problems, want)
 }
