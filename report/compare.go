@@ -33,7 +33,7 @@ func Comparison(s *survey.Survey, changes []survey.Change, disp Display, asCSV b
 			before = status(*c.Previous)
 		}
 		rows = append(rows, []string{fmt.Sprint(it.Rank), it.CML.ID, it.Asset.Name, it.Component.Name, prevDate, prevT,
-			day(r.CurrentDate), u.thick(r.ThicknessMM), latest, u.rate(r.RateLongMMPerY), before, status(r), strings.Join(c.Codes, " ")})
+			day(r.CurrentDate), u.thick(r.ThicknessMM), latest, u.rate(r.RateLongMMPerY), before, status(r), strings.Join(codes(c.Codes), " ")})
 	}
 	for _, row := range rows {
 		for i, v := range row {

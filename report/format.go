@@ -95,26 +95,20 @@ func urgent(r wallloss.Result) bool {
 }
 
 // flagMeanings explains each flag code in the methods appendix.
-var flagMeanings = []struct{ Code, Meaning string }{
-	{wallloss.FlagBelowRequired, "the current thickness is at or below the required thickness; remaining life 0."},
-	{wallloss.FlagThicknessIncrease, "a later reading is thicker than an earlier one; that rate is taken as zero. Re-measure."},
-	{wallloss.FlagSingleVisit, "the CML has readings from one visit only."},
-	{wallloss.FlagNominalBased, "the long-term rate starts from nominal thickness at the installed date, not from a measured reading."},
-	{wallloss.FlagNoRate, "no corrosion rate can be computed (one visit and no nominal thickness or installed date)."},
-	{wallloss.FlagNoRequired, "the component has no required thickness, so no remaining life."},
-	{wallloss.FlagNoReadings, "the CML row holds no readings."},
-	{wallloss.FlagNotMeasuredLatest, "the CML was not measured at the survey's latest visit; its results date from an earlier one."},
-	{wallloss.FlagNoMeasurableLoss, "the loss over the interval is within the gauge tolerance: no measurable loss, no retirement date."},
-	{wallloss.FlagAboveNominal, "a reading is more than the gauge tolerance above nominal: suspect (coating, calibration, location)."},
-	{wallloss.FlagEstimate, "the rate is a single-visit estimate (nominal-based, assumed or ISO 9224), not a measured rate."},
-	{wallloss.FlagFitNeedsThree, "the fit model needs three or more visits; the larger of long- and short-term rate was used."},
+func flagMeanings() []struct{ Code, Meaning string } {
+	out := make([]struct{ Code, Meaning string }, len(wallloss.AllFlags))
+	for i, f := range wallloss.AllFlags {
+		out[i].Code, out[i].Meaning = string(f), f.Describe()
+	}
+	return out
 }
 
-func flagsText(flags []string) string {
-	if len(flags) == 0 {
-		return ""
+func flagsText(flags []wallloss.Flag) string {
+	names := make([]string, len(flags))
+	for i, f := range flags {
+		names[i] = string(f)
 	}
-	return strings.Join(flags, ", ")
+	return strings.Join(names, ", ")
 }
 
 func latLon(p *survey.LatLon) string {

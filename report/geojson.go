@@ -46,7 +46,7 @@ func GeoJSON(s *survey.Survey, items []*survey.Assessed) ([]byte, error) {
 			"rank": it.Rank, "status": status(r), "thickness_mm": round(r.ThicknessMM, 4), "required_mm": round(it.Component.Design.RequiredMM, 4),
 			"rate_mm_per_y": round(r.RateMMPerY, 6), "remaining_life_y": round(r.RemainingLifeY, 3),
 			"retirement_date": dateOf(r.Retirement), "next_inspection": dateOf(r.NextInspection),
-			"risk_level": risk.Level(), "risk_score": risk.Score(), "flags": append([]string{}, r.Flags...),
+			"risk_level": risk.Level(), "risk_score": risk.Score(), "flags": codes(r.Flags),
 		}
 		fc.Features = append(fc.Features, feature{Type: "Feature", Geometry: pointAt(*it.CML.GPS), Properties: props})
 	}

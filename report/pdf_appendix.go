@@ -16,7 +16,7 @@ func (d *doc) methods() error {
 		"AutoPlace":        d.opts.Place.Auto,
 		"RadiusM":          d.opts.Place.RadiusM,
 		"AreaRadiusM":      d.opts.Place.AreaRadiusM,
-		"Flags":            flagMeanings,
+		"Flags":            flagMeanings(),
 	})
 	if err != nil {
 		return fmt.Errorf("methods template: %w", err)

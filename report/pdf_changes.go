@@ -2,29 +2,12 @@ package report
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 )
-
-// changeWords says a change code in words.
-func changeWords(code string) string {
-	switch {
-	case strings.HasPrefix(code, survey.ChangeGainedFlag):
-		return "now flagged " + strings.TrimPrefix(code, survey.ChangeGainedFlag)
-	case strings.HasPrefix(code, survey.ChangeLostFlag):
-		return "no longer flagged " + strings.TrimPrefix(code, survey.ChangeLostFlag)
-	}
-	return map[string]string{
-		survey.ChangeNewCML:          "new CML, first measured at this visit",
-		survey.ChangeNotRemeasured:   "not measured at this visit",
-		survey.ChangeCrossedRequired: "CROSSED THE REQUIRED THICKNESS",
-		survey.ChangeAccelerating:    "ACCELERATING",
-		survey.ChangeShorterWindow:   "moved into a shorter repair window",
-		survey.ChangeLongerWindow:    "moved into a longer repair window",
-	}[code]
-}
 
 // changesSection writes "Changes since the last visit": what changed per CML,
 // the rate over each interval, CMLs dropped, design changes, and before/after photos.
@@ -78,10 +61,10 @@ func (d *doc) changesSection() {
 			}
 			var words []string
 			for _, code := range c.Codes {
-				words = append(words, changeWords(code))
+				words = append(words, code.Describe())
 			}
 			rows[i] = []string{it.CML.ID, it.Asset.Name + " / " + it.Component.Name, before, now, window, strings.Join(words, "; ")}
-			serious := contains(c.Codes, survey.ChangeCrossedRequired) || contains(c.Codes, survey.ChangeAccelerating)
+			serious := slices.ContainsFunc(c.Codes, survey.ChangeCode.Serious)
 			styles[i] = rowStyle{bold: serious, shade: serious}
 		}
 		d.table([]column{{"CML", 14, "L"}, {"Asset / component", 42, "L"}, {"Previous (" + u + ")", 24, "L"},
@@ -139,13 +122,4 @@ func (d *doc) changesSection() {
 		d.heading(1, "Before and after")
 		d.photoGrid(pairs)
 	}
-}
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
 }

@@ -41,9 +41,9 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	} else if des.RequiredMM == nil {
 		req = "not given: no remaining life"
 	}
-	model := d.opts.Policy.RateModel
+	model, modelText := d.opts.Policy.RateModel, ""
 	if des.RateModel != "" {
-		model = des.RateModel + " (set for this component)"
+		model, modelText = wallloss.RateModel(des.RateModel), " (set for this component)"
 	}
 	rule := d.opts.Policy.Rule
 	if des.Rule != nil {
@@ -55,7 +55,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		{"Installed", installed},
 		{"Consequence", cons},
 		{"CMLs", strconv.Itoa(len(c.CMLs))},
-		{"Rate model", rateModelText(model)},
+		{"Rate model", string(model) + modelText + ": " + model.Describe()},
 		{"Interval rule", rule.Describe(d.opts.Policy.IntervalCapYears)},
 	}
 	if des.AssumedRateMMPerY != nil {
@@ -153,18 +153,8 @@ func mdEscape(s string) string {
 	return strings.NewReplacer("*", "\\*", "_", "\\_", "`", "\\`").Replace(s)
 }
 
-// rateModelText explains a rate model in words.
-func rateModelText(m string) string {
-	switch strings.Fields(m + " ")[0] {
-	case wallloss.ModelLong:
-		return m + ": long-term rate from the earliest reading (API 570 §7.1.1)"
-	case wallloss.ModelShort:
-		return m + ": short-term rate from the previous reading (API 570 §7.1.1)"
-	case wallloss.ModelFit:
-		return m + ": least-squares line through all visits (three or more), remaining life also at the rate's one-sided 95 % upper bound (Student t)"
-	}
-	return m + ": the larger of long- and short-term rate (API 570 §7.1.1; the conservative choice)"
-}
+// rateModelText names a rate model and explains it in words.
+func rateModelText(m wallloss.RateModel) string { return string(m) + ": " + m.Describe() }
 
 // visitsPerTable is how many visit columns fit on a portrait page.
 const visitsPerTable = 6
@@ -237,15 +227,15 @@ func (d *doc) results(c *survey.Component) {
 			thick += " (" + day(r.CurrentDate) + ")"
 		}
 		next := day(r.NextInspection)
-		if r.NextBasis != "" {
-			next += " (" + r.NextBasis + ")"
+		if b := r.NextBasis.String(); b != "" {
+			next += " (" + b + ")"
 		}
 		if r.NextExternal != nil {
 			next += "; external " + day(r.NextExternal)
 		}
 		rate := d.u.rate(r.RateMMPerY)
 		if r.RateModel != "" && r.RateModel != wallloss.ModelMax {
-			rate += " " + r.RateModel
+			rate += " " + string(r.RateModel)
 		}
 		if r.RateUpperMMPerY != nil {
 			rate += ", upper " + d.u.rate(r.RateUpperMMPerY)
@@ -255,9 +245,9 @@ func (d *doc) results(c *survey.Component) {
 			life += " (low " + years(r.RemainingLifeLowY) + ")"
 		}
 		st := status(r)
-		var flags []string
+		var flags []wallloss.Flag
 		for _, f := range r.Flags {
-			if strings.ReplaceAll(f, "-", " ") != st {
+			if strings.ReplaceAll(string(f), "-", " ") != st {
 				flags = append(flags, f)
 			}
 		}

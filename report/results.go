@@ -1,6 +1,7 @@
 package report
 
 import (
+	"fmt"
 	"math"
 	"time"
 
@@ -149,7 +150,7 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 			RateLongMMPerY:    round(res.RateLongMMPerY, 6),
 			RateShortMMPerY:   round(res.RateShortMMPerY, 6),
 			RateMMPerY:        round(res.RateMMPerY, 6),
-			RateModel:         res.RateModel,
+			RateModel:         string(res.RateModel),
 			RemainingLifeY:    round(res.RemainingLifeY, 3),
 			RemainingLifeLowY: round(res.RemainingLifeLowY, 3),
 			NextExternal:      dateOf(res.NextExternal),
@@ -158,11 +159,11 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 			Estimate:          res.HasFlag(wallloss.FlagEstimate),
 			RetirementDate:    dateOf(res.Retirement),
 			NextInspection:    dateOf(res.NextInspection),
-			Flags:             append([]string{}, res.Flags...),
+			Flags:             codes(res.Flags),
 			Photos:            photosOf(s, it.CML),
 		}
-		if res.NextBasis != "" {
-			item.NextInspectionWhy = &res.NextBasis
+		if b := res.NextBasis.String(); b != "" {
+			item.NextInspectionWhy = &b
 		}
 		if c := d.Consequence.String(); c != "" {
 			item.Consequence = &c
@@ -173,7 +174,7 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 		risk := plan.RiskOf(it)
 		item.Likelihood, item.RiskScore, item.RiskLevel = risk.Likelihood.String(), risk.Score(), risk.Level()
 		ch := byCML[it.CML]
-		item.Intervals, item.Change = []Interval{}, append([]string{}, ch.Codes...)
+		item.Intervals, item.Change = []Interval{}, codes(ch.Codes)
 		for _, iv := range ch.Intervals {
 			item.Intervals = append(item.Intervals, Interval{Start: iv.Start.Format(dateLayout), End: iv.End.Format(dateLayout), RateMMPerY: *round(&iv.RateMMPerY, 6)})
 		}
@@ -230,6 +231,15 @@ func requiredMethod(d survey.Design) string {
 		return "as written"
 	}
 	return ""
+}
+
+// codes writes typed codes as their stable strings (never null).
+func codes[T any](cs []T) []string {
+	out := make([]string, len(cs))
+	for i, c := range cs {
+		out[i] = fmt.Sprint(c)
+	}
+	return out
 }
 
 func ptrTo(v float64) *float64 { return &v }

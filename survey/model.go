@@ -80,7 +80,13 @@ type Design struct {
 }
 
 // RateModels are the rate models a component or the settings may choose.
-var RateModels = []string{wallloss.ModelLong, wallloss.ModelShort, wallloss.ModelMax, wallloss.ModelFit}
+var RateModels = func() []string {
+	var names []string
+	for _, m := range wallloss.ChoosableRateModels {
+		names = append(names, string(m))
+	}
+	return names
+}()
 
 // CML is a condition monitoring location: one row of a reading table.
 type CML struct {

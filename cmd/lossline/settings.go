@@ -70,7 +70,7 @@ func addSettingFlags(c *cobra.Command) {
 	f.Int(keyLongSide, 1600, "longest side of photos in the report, `pixels`")
 	f.Int(keyQuality, 80, "JPEG `quality` of photos in the report (1-100)")
 	f.String(keyTemplates, "", "`folder` whose report texts replace the built-in ones")
-	f.String(keyRateModel, wallloss.ModelMax, "rate `model`: long, short, max or fit")
+	f.String(keyRateModel, string(wallloss.ModelMax), "rate `model`: long, short, max or fit")
 	f.String(keyRule, "half life", "interval `rule`: half life, API 570 class N, API 510, API 653 shell, API 653 bottom, fixed N years")
 	f.Float64(keyTolerance, wallloss.DefaultToleranceMM, "gauge tolerance, `mm`: smaller changes are measurement noise")
 	f.String(keyThickUnits, "", "thickness `units` shown in the report: mm or in (default: the survey's)")
@@ -94,7 +94,7 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	v.SetDefault(keyLongSide, 1600)
 	v.SetDefault(keyQuality, 80)
 	v.SetDefault(keyTemplates, "")
-	v.SetDefault(keyRateModel, wallloss.ModelMax)
+	v.SetDefault(keyRateModel, string(wallloss.ModelMax))
 	v.SetDefault(keyRule, "half life")
 	v.SetDefault(keyTolerance, wallloss.DefaultToleranceMM)
 	v.SetDefault(keyThickUnits, "")
@@ -149,7 +149,7 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	if !slices.Contains(survey.RateModels, model) {
 		return s, badInput{fmt.Errorf("%s %q is not one of %s", keyRateModel, model, strings.Join(survey.RateModels, ", "))}
 	}
-	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: model, Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
+	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: wallloss.RateModel(model), Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
 	s.AccelerationPct = v.GetFloat64(keyAccel)
 	s.Read = survey.Options{MaxMegapixels: v.GetFloat64(keyMaxMP), Place: survey.PlaceOptions{
 		Auto: v.GetBool(keyAutoPlace), RadiusM: v.GetFloat64(keyRadius), AreaRadiusM: v.GetFloat64(keyArea)}}

@@ -115,28 +115,28 @@ func (r IntervalRule) maxYears(capYears float64) float64 {
 
 // Interval returns the years to the next inspection for a remaining life
 // (life > 0) and what set it.
-func (r IntervalRule) Interval(life, capYears float64) (float64, string) {
+func (r IntervalRule) Interval(life, capYears float64) (float64, Basis) {
 	limit := r.maxYears(capYears)
 	var v float64
-	var basis string
+	var basis BasisKind
 	switch r.Kind {
 	case RuleAPI510:
 		if life < 4 {
-			v, basis = min(life, 2), "API 510: remaining life under 4 years, up to 2 years"
+			v, basis = min(life, 2), BasisAPI510Short
 		} else {
-			v, basis = life/2, "half life"
+			v, basis = life/2, BasisHalfLife
 		}
 	case RuleAPI653Floor:
-		v, basis = life, "remaining life (MRT)"
+		v, basis = life, BasisMRT
 	case RuleFixed:
-		v, basis = life, "remaining life"
+		v, basis = life, BasisRemainingLife
 	default:
-		v, basis = life/2, "half life"
+		v, basis = life/2, BasisHalfLife
 	}
 	if v >= limit {
-		return limit, fmt.Sprintf("%g-year limit", limit)
+		return limit, Basis{Kind: BasisLimit, Years: limit}
 	}
-	return v, basis
+	return v, Basis{Kind: basis}
 }
 
 // NoRateInterval is the interval when no rate is known, or 0 when the rule

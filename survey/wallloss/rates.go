@@ -11,18 +11,6 @@ type Reading struct {
 	ThicknessMM float64
 }
 
-// Rate models.
-const (
-	ModelLong  = "long"  // long-term rate only
-	ModelShort = "short" // short-term rate only
-	ModelMax   = "max"   // the larger of the two (default)
-	ModelFit   = "fit"   // least-squares line through all visits
-	// Single-visit estimates, chosen automatically:
-	ModelNominal = "nominal-based" // from nominal at the installed date
-	ModelAssumed = "assumed"       // a rate the engineer wrote down
-	ModelISO9224 = "iso-9224"      // ISO 9223 category and ISO 9224 model
-)
-
 // Input is what the computation needs for one CML.
 type Input struct {
 	Readings    []Reading // oldest first
@@ -31,7 +19,7 @@ type Input struct {
 	Installed   *time.Time
 	LatestVisit time.Time // the newest visit of the whole survey
 
-	RateModel         string        // "" for the policy's
+	RateModel         RateModel     // "" for the policy's
 	Rule              *IntervalRule // nil for the policy's
 	AssumedRateMMPerY *float64      // single-visit estimate written by the engineer
 	Corrosivity       Corrosivity   // single-visit estimate for atmospheric exposure
@@ -41,7 +29,7 @@ type Input struct {
 // Policy holds the settings the computation follows.
 type Policy struct {
 	IntervalCapYears float64      // cap of the half-life rule
-	RateModel        string       // long, short, max or fit
+	RateModel        RateModel    // long, short, max or fit
 	Rule             IntervalRule // default interval rule
 	ToleranceMM      float64      // gauge tolerance: smaller changes are noise
 }
@@ -66,43 +54,27 @@ const (
 	LifeUnknown                        // no reading, no rate or no required thickness
 )
 
-// Flags: stable codes written to results and shown in the report.
-const (
-	FlagBelowRequired     = "below-required"
-	FlagThicknessIncrease = "thickness-increase"
-	FlagSingleVisit       = "single-visit"
-	FlagNominalBased      = "nominal-based"
-	FlagEstimate          = "estimate"
-	FlagNoRate            = "no-rate"
-	FlagNoRequired        = "no-required"
-	FlagNoReadings        = "no-readings"
-	FlagNotMeasuredLatest = "not-remeasured"
-	FlagNoMeasurableLoss  = "no-measurable-loss"
-	FlagAboveNominal      = "above-nominal"
-	FlagFitNeedsThree     = "fit-needs-3-visits"
-)
-
 // Result is the outcome for one CML. Nil pointers are values that cannot be computed.
 type Result struct {
 	ThicknessMM     *float64
 	CurrentDate     *time.Time
 	RateLongMMPerY  *float64
 	RateShortMMPerY *float64
-	RateMMPerY      *float64 // the governing rate under the model
-	RateModel       string   // the model that gave RateMMPerY
-	Fit             *LineFit // the least-squares line, model fit only
-	RateUpperMMPerY *float64 // fit: rate at the one-sided 95 % upper bound
+	RateMMPerY      *float64  // the governing rate under the model
+	RateModel       RateModel // the model that gave RateMMPerY
+	Fit             *LineFit  // the least-squares line, model fit only
+	RateUpperMMPerY *float64  // fit: rate at the one-sided 95 % upper bound
 	RemainingLifeY  *float64
 	// RemainingLifeLowY is the remaining life at the rate's upper 95 % bound (fit only).
 	RemainingLifeLowY *float64
 	Retirement        *time.Time
 	NextInspection    *time.Time
-	NextBasis         string // what set the next inspection
+	NextBasis         Basis // what set the next inspection
 	NextExternal      *time.Time
 	Rule              IntervalRule
 	Class             LifeClass
 	requiredMM        *float64
-	Flags             []string
+	Flags             []Flag
 }
 
 // PlanningLifeY is the remaining life dates and ranking use: the lower bound
@@ -113,9 +85,6 @@ func (r Result) PlanningLifeY() *float64 {
 	}
 	return r.RemainingLifeY
 }
-
-// Next-inspection basis for a CML at or below required.
-const BasisNow = "now"
 
 // Assess computes rates, remaining life and dates for one CML.
 func Assess(in Input, p Policy) Result {
@@ -177,7 +146,7 @@ func (r Result) RequiredMM() *float64 { return r.requiredMM }
 
 // measuredRate sets the long- and short-term rates and the governing rate of
 // the model; it reports whether that rate is a measurable loss.
-func (r *Result) measuredRate(rs []Reading, model string, tol float64) bool {
+func (r *Result) measuredRate(rs []Reading, model RateModel, tol float64) bool {
 	n := len(rs)
 	first, prev, cur := rs[0], rs[n-2], rs[n-1]
 	lt, ltOK := r.rate(first, cur, tol)
@@ -252,18 +221,18 @@ func (r *Result) dates(cur Reading, requiredMM float64, in Input, p Policy) {
 		r.flag(FlagBelowRequired)
 		r.Class = AtOrBelowRequired
 		r.RemainingLifeY = ptr(0.0)
-		r.Retirement, r.NextInspection, r.NextBasis = ptr(cur.Date), ptr(cur.Date), BasisNow
+		r.Retirement, r.NextInspection, r.NextBasis = ptr(cur.Date), ptr(cur.Date), Basis{Kind: BasisNow}
 		return
 	case r.RateMMPerY == nil:
 		if y := r.Rule.NoRateInterval(); y > 0 {
-			r.NextInspection, r.NextBasis = ptr(AddYears(cur.Date, y)), "rate unknown: 5 years"
+			r.NextInspection, r.NextBasis = ptr(AddYears(cur.Date, y)), Basis{Kind: BasisRateUnknown, Years: y}
 			r.NextExternal = ptr(AddYears(cur.Date, 5))
 		}
 		return
 	case *r.RateMMPerY == 0:
 		r.Class = NoMeasurableLoss
 		y := r.Rule.maxYears(p.IntervalCapYears)
-		r.NextInspection, r.NextBasis = ptr(AddYears(cur.Date, y)), "no measurable loss"
+		r.NextInspection, r.NextBasis = ptr(AddYears(cur.Date, y)), Basis{Kind: BasisNoLoss}
 		if r.Rule.Kind == RuleAPI653Shell {
 			r.NextExternal = ptr(AddYears(cur.Date, 5))
 		}
@@ -306,7 +275,7 @@ func (r *Result) rate(a, b Reading, tol float64) (float64, bool) {
 	return v, loss > tol
 }
 
-func (r *Result) flag(f string) {
+func (r *Result) flag(f Flag) {
 	for _, x := range r.Flags {
 		if x == f {
 			return
@@ -316,7 +285,7 @@ func (r *Result) flag(f string) {
 }
 
 // HasFlag reports whether the result carries flag f.
-func (r Result) HasFlag(f string) bool {
+func (r Result) HasFlag(f Flag) bool {
 	for _, x := range r.Flags {
 		if x == f {
 			return true

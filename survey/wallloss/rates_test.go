@@ -61,7 +61,7 @@ func TestAssessAPI570WorkedExample(t *testing.T) {
 	// Half the remaining life (10.14 y) exceeds the 10-year cap (API 570 Table 2,
 	// Class 2): next inspection 2023-06-01 + 10 calendar years.
 	sameDay(t, "next inspection", res.NextInspection, "2033-06-01")
-	if res.NextBasis != "10-year limit" {
+	if res.NextBasis.String() != "10-year limit" {
 		t.Errorf("next-inspection basis = %q, want the 10-year limit", res.NextBasis)
 	}
 	// 20 calendar years, then 0.275 y × 365.25 = 100.4 days rounded down.
@@ -92,7 +92,7 @@ func TestAssessNominalBaseline(t *testing.T) {
 		t.Errorf("short-term rate = %v, want none from a single visit", *res.RateShortMMPerY)
 	}
 	near(t, "remaining life", res.RemainingLifeY, (0.262-0.100)/0.002250, 1e-6)
-	for _, f := range []string{FlagSingleVisit, FlagNominalBased} {
+	for _, f := range []Flag{FlagSingleVisit, FlagNominalBased} {
 		if !res.HasFlag(f) {
 			t.Errorf("flags %v lack %s", res.Flags, f)
 		}
