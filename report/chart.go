@@ -39,7 +39,7 @@ type trendPoint struct {
 const chartHorizonYears = 25
 
 // buildTrendChart gathers a component's readings and projections.
-func buildTrendChart(c *survey.Component, results map[*survey.CML]*survey.Assessed) trendChart {
+func buildTrendChart(c *survey.Component, results func(*survey.CML) *survey.Assessed) trendChart {
 	ch := trendChart{RequiredMM: c.Design.RequiredMM, NominalMM: c.Design.NominalMM, LowMM: math.Inf(1), HighMM: math.Inf(-1)}
 	var latest time.Time
 	for _, m := range c.CMLs {
@@ -52,7 +52,7 @@ func buildTrendChart(c *survey.Component, results map[*survey.CML]*survey.Assess
 				latest = p.T
 			}
 		}
-		if it := results[m]; it != nil {
+		if it := results(m); it != nil {
 			r := it.Result
 			s.Window, s.Estimate = wallloss.WindowOf(r), r.HasFlag(wallloss.FlagEstimate)
 			if r.Retirement != nil && r.RequiredMM() != nil && r.Class == wallloss.FiniteLife {

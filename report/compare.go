@@ -5,20 +5,21 @@ import (
 	"fmt"
 	"strings"
 
-	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/findings"
 )
 
 // Comparison renders the changes of a survey as an aligned text table, or as
 // CSV: one row per CML in rank order, then the CMLs no longer listed and the
 // design data that changed.
-func Comparison(s *survey.Survey, changes []survey.Change, disp Display, asCSV bool) ([]byte, error) {
+func Comparison(f *findings.Findings, disp Display, asCSV bool) ([]byte, error) {
+	s := f.Survey
 	disp = disp.resolve(s.Units)
 	u := units{disp.Thickness, disp.Rate}
 	tu, ru := string(u.u), u.rateUnit
 	header := []string{"rank", "cml", "asset", "component", "previous_date", "previous_" + tu, "date", "thickness_" + tu,
 		"latest_interval_" + ru, "long_term_" + ru, "window_before", "window_now", "change"}
 	var rows [][]string
-	for _, c := range changes {
+	for _, c := range f.Changes {
 		it, r := c.Item, c.Item.Result
 		prevDate, prevT, latest := "", "", ""
 		if n := len(it.CML.Visits); n >= 2 {

@@ -3,8 +3,8 @@ package report
 import (
 	"encoding/json"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/survey"
-	"github.com/lossline/lossline/survey/plan"
 )
 
 // GeoJSONFile is the name of the locations export.
@@ -33,14 +33,15 @@ func pointAt(p survey.LatLon) point {
 // GeoJSON renders locations.geojson (RFC 7946, WGS 84, longitude first): a
 // point per CML with a position, with its results, and a point per photo
 // with a position, with its file, time and placement.
-func GeoJSON(s *survey.Survey, items []*survey.Assessed) ([]byte, error) {
+func GeoJSON(f *findings.Findings) ([]byte, error) {
+	s := f.Survey
 	fc := featureCollection{Type: "FeatureCollection", Features: []feature{}}
-	for _, it := range items {
+	for _, it := range f.Items {
 		if it.CML.GPS == nil {
 			continue
 		}
 		r := it.Result
-		risk := plan.RiskOf(it)
+		risk := f.Risk(it)
 		props := map[string]any{
 			"kind": "cml", "cml": it.CML.ID, "asset": it.Asset.Name, "component": it.Component.Name, "location": it.CML.Location,
 			"rank": it.Rank, "status": status(r), "thickness_mm": round(r.ThicknessMM, 4), "required_mm": round(it.Component.Design.RequiredMM, 4),

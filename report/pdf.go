@@ -12,24 +12,19 @@ import (
 	"golang.org/x/image/font/gofont/gomono"
 	"golang.org/x/image/font/gofont/goregular"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/survey"
-	"github.com/lossline/lossline/survey/wallloss"
 	"github.com/lossline/lossline/templates"
 )
 
 // Options are the settings the report follows.
 type Options struct {
-	Policy  wallloss.Policy
-	Display Display
-	// AccelerationPct is the margin over the long-term rate at which a CML's
-	// latest interval counts as accelerating.
-	AccelerationPct float64
-	Photos          PhotoSettings
-	Plan            PlanSettings // a repair plan is drawn when Plan.Budget > 0
-	Place           survey.PlaceOptions
-	Templates       templates.Set
-	Created         time.Time // printed as the report date and written as the PDF's creation date
-	Version         string    // lossline version, printed on the cover
+	Display   Display
+	Photos    PhotoSettings
+	Place     survey.PlaceOptions // how photos were placed, stated in the methods appendix
+	Templates templates.Set
+	Created   time.Time // printed as the report date and written as the PDF's creation date
+	Version   string    // lossline version, printed on the cover
 }
 
 // Page geometry, mm (A4).
@@ -46,14 +41,13 @@ const (
 // doc is the PDF being written and what the sections share.
 type doc struct {
 	pdf       *fpdf.Fpdf
+	f         *findings.Findings
 	s         *survey.Survey
 	items     []*survey.Assessed
 	opts      Options
 	u         units
 	landscape bool
-	changes   map[*survey.CML]survey.Change
 	photos    map[string]*photoEntry
-	byCML     map[*survey.CML]*survey.Assessed
 	warnings  survey.ProblemList
 }
 
@@ -67,16 +61,11 @@ type photoEntry struct {
 
 // PDF renders report.pdf. Photos that cannot be read are left out and come
 // back as warnings.
-func PDF(s *survey.Survey, items []*survey.Assessed, opts Options) ([]byte, survey.ProblemList, error) {
+func PDF(f *findings.Findings, opts Options) ([]byte, survey.ProblemList, error) {
 	pdf := fpdf.New("P", "mm", "A4", "")
-	d := &doc{pdf: pdf, s: s, items: items, opts: opts, u: units{opts.Display.resolve(s.Units).Thickness, opts.Display.resolve(s.Units).Rate}, photos: map[string]*photoEntry{}, byCML: map[*survey.CML]*survey.Assessed{}}
-	for _, it := range items {
-		d.byCML[it.CML] = it
-	}
-	d.changes = map[*survey.CML]survey.Change{}
-	for _, c := range survey.Changes(s, items, opts.Policy, opts.AccelerationPct) {
-		d.changes[c.Item.CML] = c
-	}
+	s := f.Survey
+	disp := opts.Display.resolve(s.Units)
+	d := &doc{pdf: pdf, f: f, s: s, items: f.Items, opts: opts, u: units{disp.Thickness, disp.Rate}, photos: map[string]*photoEntry{}}
 	pdf.SetMargins(margin, margin, margin)
 	pdf.SetAutoPageBreak(true, bottomGap)
 	pdf.SetCellMargin(0) // tables pad their own cells; SplitText then measures the same width

@@ -9,10 +9,10 @@ import (
 func (d *doc) methods() error {
 	text, err := d.opts.Templates.Execute("report/methods.md", map[string]any{
 		"Units":            string(d.u.u),
-		"IntervalCapYears": d.opts.Policy.IntervalCapYears,
+		"IntervalCapYears": d.f.Settings.Policy.IntervalCapYears,
 		"PhotoLongSide":    d.opts.Photos.LongSide,
-		"ToleranceMM":      d.opts.Policy.ToleranceMM,
-		"AccelerationPct":  d.opts.AccelerationPct,
+		"ToleranceMM":      d.f.Settings.Policy.ToleranceMM,
+		"AccelerationPct":  d.f.Settings.AccelerationPct,
 		"AutoPlace":        d.opts.Place.Auto,
 		"RadiusM":          d.opts.Place.RadiusM,
 		"AreaRadiusM":      d.opts.Place.AreaRadiusM,
@@ -30,11 +30,11 @@ func (d *doc) methods() error {
 		tmpl = d.opts.Templates.Override + " (files there replace the built-in texts)"
 	}
 	d.keyValues([][2]string{
-		{"Rate model", rateModelText(d.opts.Policy.RateModel) + " (components may set their own)"},
-		{"Interval rule", d.opts.Policy.Rule.Describe(d.opts.Policy.IntervalCapYears) + " (components may set their own)"},
-		{"Half-life cap", fmt.Sprintf("%g years", d.opts.Policy.IntervalCapYears)},
-		{"Gauge tolerance", fmt.Sprintf("%g mm", d.opts.Policy.ToleranceMM)},
-		{"Acceleration", fmt.Sprintf("latest interval more than %g %% above the long-term rate", d.opts.AccelerationPct)},
+		{"Rate model", rateModelText(d.f.Settings.Policy.RateModel) + " (components may set their own)"},
+		{"Interval rule", d.f.Settings.Policy.Rule.Describe(d.f.Settings.Policy.IntervalCapYears) + " (components may set their own)"},
+		{"Half-life cap", fmt.Sprintf("%g years", d.f.Settings.Policy.IntervalCapYears)},
+		{"Gauge tolerance", fmt.Sprintf("%g mm", d.f.Settings.Policy.ToleranceMM)},
+		{"Acceleration", fmt.Sprintf("latest interval more than %g %% above the long-term rate", d.f.Settings.AccelerationPct)},
 		{"Year length", "365.25 days"},
 		{"Display units", fmt.Sprintf("thickness in %s, rates in %s (1 mil = 0.001 in; results.json in mm and mm/y)", d.u.u, d.u.rateUnit)},
 		{"Photos", fmt.Sprintf("long side at most %d px, JPEG quality %d", d.opts.Photos.LongSide, d.opts.Photos.Quality)},

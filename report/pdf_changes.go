@@ -14,7 +14,7 @@ import (
 func (d *doc) changesSection() {
 	var changed, withIntervals []survey.Change
 	for _, it := range d.items {
-		c := d.changes[it.CML]
+		c := d.f.Change(it.CML)
 		if len(c.Codes) > 0 {
 			changed = append(changed, c)
 		}
@@ -30,7 +30,7 @@ func (d *doc) changesSection() {
 	d.heading(0, "Changes since the last visit")
 	intro := fmt.Sprintf("Each CML's latest visit compared with its previous one, with the same design data and settings. "+
 		"A CML is accelerating when the rate of its latest interval exceeds its long-term rate by more than %g %%. "+
-		"Thicknesses in %s, rates in %s.", d.opts.AccelerationPct, d.u.u, d.u.rateUnit)
+		"Thicknesses in %s, rates in %s.", d.f.Settings.AccelerationPct, d.u.u, d.u.rateUnit)
 	if h != nil {
 		var files []string
 		for _, e := range h.Earlier {
@@ -107,7 +107,7 @@ func (d *doc) changesSection() {
 	}
 	var pairs []photoShown
 	for _, it := range d.items {
-		c := d.changes[it.CML]
+		c := d.f.Change(it.CML)
 		if len(c.PhotosBefore) == 0 || len(c.PhotosCurrent) == 0 {
 			continue
 		}

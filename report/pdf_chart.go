@@ -22,7 +22,7 @@ const (
 // retirement date, the required thickness as a heavy dash-dot line. CMLs are
 // told apart by marker shape and a label, so the chart reads in grey scale.
 func (d *doc) trend(c *survey.Component) {
-	ch := buildTrendChart(c, d.byCML)
+	ch := buildTrendChart(c, d.f.Item)
 	if len(ch.Series) == 0 {
 		return
 	}
@@ -119,7 +119,7 @@ func (d *doc) trend(c *survey.Component) {
 	x := margin
 	for i, s := range ch.Series {
 		retire := "no retirement date"
-		if r := d.byCML[c.CMLs[indexOf(c, s.ID)]]; r != nil && r.Result.Retirement != nil {
+		if r := d.f.Item(c.CMLs[indexOf(c, s.ID)]); r != nil && r.Result.Retirement != nil {
 			retire = "retires " + day(r.Result.Retirement)
 		}
 		label := s.ID + ": " + retire

@@ -41,11 +41,11 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	} else if des.RequiredMM == nil {
 		req = "not given: no remaining life"
 	}
-	model, modelText := d.opts.Policy.RateModel, ""
+	model, modelText := d.f.Settings.Policy.RateModel, ""
 	if des.RateModel != "" {
 		model, modelText = wallloss.RateModel(des.RateModel), " (set for this component)"
 	}
-	rule := d.opts.Policy.Rule
+	rule := d.f.Settings.Policy.Rule
 	if des.Rule != nil {
 		rule = *des.Rule
 	}
@@ -56,7 +56,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		{"Consequence", cons},
 		{"CMLs", strconv.Itoa(len(c.CMLs))},
 		{"Rate model", string(model) + modelText + ": " + model.Describe()},
-		{"Interval rule", rule.Describe(d.opts.Policy.IntervalCapYears)},
+		{"Interval rule", rule.Describe(d.f.Settings.Policy.IntervalCapYears)},
 	}
 	if des.AssumedRateMMPerY != nil {
 		pairs = append(pairs, [2]string{"Assumed rate", d.u.rate(des.AssumedRateMMPerY) + " " + d.u.rateUnit + " (single-visit estimate written by the engineer)"})
@@ -69,7 +69,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		pairs = append(pairs, [2]string{"Corrosivity", fmt.Sprintf("%s (ISO 9223): first-year rate of %s up to %g µm/a, ISO 9224 exponent b = %g (single-visit estimate)",
 			des.Corrosivity, metal, des.Corrosivity.FirstYearRateUM(metal), wallloss.ISO9224ExponentB(metal))})
 	}
-	if g := survey.Governing(d.items, c); g != nil {
+	if g := d.f.Governing(c); g != nil {
 		r := g.Result
 		gov := fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",
 			g.CML.ID, status(r), years(r.RemainingLifeY), day(r.NextInspection))
@@ -109,20 +109,15 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	}
 	var shown []photoShown
 	for _, m := range c.CMLs {
-		for _, ref := range m.PhotoRefs {
-			if e := d.photos[ref]; e != nil {
+		for _, ph := range d.f.Photos.OfCML(m) {
+			if e := d.photos[ph.Name]; e != nil {
 				shown = append(shown, photoShown{entry: e, cml: m.ID})
 			}
 		}
-		for _, ph := range d.s.Photos { // placed on the CML by position
-			if pl := ph.Placement; pl.CML == m.ID && pl.Basis != survey.PlacedNamed && d.photos[ph.Name] != nil {
-				shown = append(shown, photoShown{entry: d.photos[ph.Name], cml: m.ID})
-			}
-		}
 	}
-	for _, ph := range d.s.Photos { // placed on the component by position
-		if pl := ph.Placement; pl.Basis == survey.PlacedComponent && pl.Asset == a.Name && pl.Component == c.Name && d.photos[ph.Name] != nil {
-			shown = append(shown, photoShown{entry: d.photos[ph.Name]})
+	for _, ph := range d.f.Photos.OfComponent(c) {
+		if e := d.photos[ph.Name]; e != nil {
+			shown = append(shown, photoShown{entry: e})
 		}
 	}
 	if len(shown) > 0 {
@@ -262,7 +257,7 @@ func (d *doc) results(c *survey.Component) {
 }
 
 func (d *doc) assessed(m *survey.CML) *survey.Assessed {
-	return d.byCML[m]
+	return d.f.Item(m)
 }
 
 // stripInline removes Markdown emphasis markers for table cells.

@@ -19,7 +19,7 @@ func (d *doc) riskSection() {
 		". Consequence is written per component (very low 1 … very high 5; not given: taken as high). Risk level: " +
 		"low 1-4, medium 5-9, high 10-14, very high 15-25. The bands are lossline's own.")
 	d.pdf.Ln(2)
-	m := plan.MatrixOf(d.items)
+	m := d.f.Matrix
 	p := d.pdf
 	labelW, cellW, cellH := 30.0, 28.0, 12.0
 	x0, y0 := margin+8, p.GetY()+6
@@ -78,8 +78,8 @@ func (d *doc) riskSection() {
 		for _, c := range a.Components {
 			cr := compRisk{name: a.Name + " / " + c.Name}
 			for _, m := range c.CMLs {
-				if it := d.byCML[m]; it != nil {
-					r := plan.RiskOf(it)
+				if it := d.f.Item(m); it != nil {
+					r := d.f.Risk(it)
 					cr.total += r.Score()
 					if r.Score() > cr.top.Score() {
 						cr.top, cr.cml = r, m.ID
@@ -111,16 +111,14 @@ func (d *doc) riskSection() {
 
 // planSection writes the repair plan for the budget of the settings.
 func (d *doc) planSection() {
-	ps := d.opts.Plan
-	if ps.Budget <= 0 {
+	rp := d.f.Repairs
+	if rp == nil {
 		return
 	}
-	cands, noCost := plan.Candidates(d.s.Title, d.items, ps.Costs)
-	p := ps.Make(cands, d.s.Date)
-	cur := ps.Costs.Currency
+	p, noCost, cur := rp.Plan, rp.NoCost, d.f.Settings.Plan.Costs.Currency
 	d.newPage(false)
 	d.heading(0, "Repair plan")
-	budgets := ps.Budgets()
+	budgets := p.Budgets
 	what := fmt.Sprintf("a budget of %s %s for one year from %s", money(budgets[0]), cur, d.s.Date.Format(dateLayout))
 	if len(budgets) > 1 {
 		what = fmt.Sprintf("%d years from %s: %s %s in the first year, then %s %s a year", len(budgets), d.s.Date.Format(dateLayout),

@@ -147,7 +147,7 @@ func (d *doc) summary() {
 		var rows [][]string
 		var styles []rowStyle
 		for _, c := range a.Components {
-			g := survey.Governing(d.items, c)
+			g := d.f.Governing(c)
 			row := []string{c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
 			st := rowStyle{}
 			if g != nil {

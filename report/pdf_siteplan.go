@@ -43,7 +43,7 @@ func (d *doc) sitePlan(a *survey.Asset) {
 		for _, m := range c.CMLs {
 			if m.GPS != nil {
 				w := wallloss.WindowUnknown
-				if it := d.byCML[m]; it != nil {
+				if it := d.f.Item(m); it != nil {
 					w = wallloss.WindowOf(it.Result)
 				}
 				label := m.ID

@@ -6,40 +6,9 @@ import (
 	"slices"
 	"strconv"
 	"strings"
-	"time"
 
 	"github.com/lossline/lossline/survey/plan"
 )
-
-// PlanSettings ask for a repair plan: the first year's budget, then the
-// budget of each later year, in the settings' currency.
-type PlanSettings struct {
-	Budget  float64
-	PerYear float64 // years 2..Years; Budget when 0
-	Years   int     // 1 for a single-year plan
-	Costs   plan.Costs
-}
-
-// Budgets lists the budget of each plan year.
-func (s PlanSettings) Budgets() []float64 {
-	years := max(s.Years, 1)
-	out := make([]float64, years)
-	for i := range out {
-		out[i] = s.Budget
-		if i > 0 && s.PerYear > 0 {
-			out[i] = s.PerYear
-		}
-	}
-	return out
-}
-
-// Make builds the plan for candidates, its first year starting at start.
-func (s PlanSettings) Make(cands []*plan.Candidate, start time.Time) plan.Plan {
-	if s.Years <= 1 {
-		return plan.Single(cands, start, s.Budget)
-	}
-	return plan.MultiYear(cands, start, s.Budgets())
-}
 
 func money(v float64) string {
 	s := strconv.FormatFloat(v, 'f', 0, 64)

@@ -1,6 +1,9 @@
 package report
 
-import "github.com/lossline/lossline/survey"
+import (
+	"github.com/lossline/lossline/findings"
+	"github.com/lossline/lossline/survey"
+)
 
 // Output file names.
 const (
@@ -10,14 +13,15 @@ const (
 )
 
 // Render produces every output in memory. The warnings returned are those
-// raised while rendering (the survey's own are in s.Problems).
-func Render(s *survey.Survey, items []*survey.Assessed, opts Options) ([]File, survey.ProblemList, error) {
-	pdf, warnings, err := PDF(s, items, opts)
+// raised while rendering (the survey's own are in Survey.Problems).
+func Render(f *findings.Findings, opts Options) ([]File, survey.ProblemList, error) {
+	s := f.Survey
+	pdf, warnings, err := PDF(f, opts)
 	if err != nil {
 		return nil, nil, err
 	}
 	all := append(append(survey.ProblemList{}, s.Problems...), warnings...)
-	res := BuildResults(s, items, survey.Changes(s, items, opts.Policy, opts.AccelerationPct), all)
+	res := BuildResults(f, all)
 	js, err := JSON(res)
 	if err != nil {
 		return nil, nil, err
@@ -26,7 +30,7 @@ func Render(s *survey.Survey, items []*survey.Assessed, opts Options) ([]File, s
 	if err != nil {
 		return nil, nil, err
 	}
-	geo, err := GeoJSON(s, items)
+	geo, err := GeoJSON(f)
 	if err != nil {
 		return nil, nil, err
 	}

@@ -16,37 +16,36 @@ import (
 	"github.com/paulmach/orb"
 	"github.com/paulmach/orb/geojson"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
 var update = flag.Bool("update", false, "rewrite golden files")
 
-func demo(t *testing.T) (*survey.Survey, []*survey.Assessed) {
+func demo(t *testing.T) *findings.Findings {
 	t.Helper()
 	s, problems := survey.LoadSeries(filepath.Join("..", "testdata", "demo"), nil, survey.DefaultOptions)
 	if problems.HasErrors() {
 		t.Fatal(problems)
 	}
-	return s, survey.Assess(s, wallloss.DefaultPolicy)
+	return findings.Compute(s, findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25})
 }
 
 func testOptions() Options {
 	return Options{
-		Policy:          wallloss.DefaultPolicy,
-		AccelerationPct: 25,
-		Place:           survey.DefaultPlaceOptions,
-		Photos:          PhotoSettings{LongSide: 1600, Quality: 80},
-		Created:         time.Date(2026, 11, 20, 9, 0, 0, 0, time.UTC),
-		Version:         "test",
+		Place:   survey.DefaultPlaceOptions,
+		Photos:  PhotoSettings{LongSide: 1600, Quality: 80},
+		Created: time.Date(2026, 11, 20, 9, 0, 0, 0, time.UTC),
+		Version: "test",
 	}
 }
 
 // results.json of the demo against the reviewed golden copy
 // (go test ./report -run Golden -update rewrites it).
 func TestGoldenResultsJSON(t *testing.T) {
-	s, items := demo(t)
-	files, _, err := Render(s, items, testOptions())
+	f := demo(t)
+	files, _, err := Render(f, testOptions())
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -73,8 +72,9 @@ func TestGoldenResultsJSON(t *testing.T) {
 }
 
 func TestCSVHasOneRowPerCML(t *testing.T) {
-	s, items := demo(t)
-	res := BuildResults(s, items, nil, nil)
+	f := demo(t)
+	s, items := f.Survey, f.Items
+	res := BuildResults(f, nil)
 	b, err := CSV(res, Display{}.resolve(s.Units))
 	if err != nil {
 		t.Fatal(err)
@@ -178,7 +178,8 @@ func TestWriteFilesAtomic(t *testing.T) {
 // The trend chart's projection ends at the computed retirement date, on the
 // required thickness.
 func TestTrendProjectionMatchesRetirement(t *testing.T) {
-	s, items := demo(t)
+	f := demo(t)
+	s, items := f.Survey, f.Items
 	byCML := map[*survey.CML]*survey.Assessed{}
 	for _, it := range items {
 		byCML[it.CML] = it
@@ -186,7 +187,7 @@ func TestTrendProjectionMatchesRetirement(t *testing.T) {
 	checked := 0
 	for _, a := range s.Assets {
 		for _, c := range a.Components {
-			ch := buildTrendChart(c, byCML)
+			ch := buildTrendChart(c, f.Item)
 			for _, series := range ch.Series {
 				var it *survey.Assessed
 				for _, m := range c.CMLs {
@@ -215,9 +216,9 @@ func TestTrendProjectionMatchesRetirement(t *testing.T) {
 }
 
 func TestComparison(t *testing.T) {
-	s, items := demo(t)
-	changes := survey.Changes(s, items, wallloss.DefaultPolicy, 25)
-	text, err := Comparison(s, changes, Display{}, false)
+	f := demo(t)
+	items := f.Items
+	text, err := Comparison(f, Display{}, false)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -226,7 +227,7 @@ func TestComparison(t *testing.T) {
 			t.Errorf("comparison lacks %q:\n%s", want, text)
 		}
 	}
-	b, _ := Comparison(s, changes, Display{}, true)
+	b, _ := Comparison(f, Display{}, true)
 	rows, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
 	if err != nil || len(rows) != 1+len(items) || rows[1][1] != "A-03" {
 		t.Errorf("CSV: %v, %d rows", err, len(rows))
@@ -236,8 +237,8 @@ func TestComparison(t *testing.T) {
 // locations.geojson read back by a general-purpose GeoJSON library: a
 // FeatureCollection of points, longitude first (RFC 7946 §3.1.1).
 func TestGeoJSON(t *testing.T) {
-	s, items := demo(t)
-	b, err := GeoJSON(s, items)
+	f := demo(t)
+	b, err := GeoJSON(f)
 	if err != nil {
 		t.Fatal(err)
 	}

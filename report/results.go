@@ -5,8 +5,8 @@ import (
 	"math"
 	"time"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/survey"
-	"github.com/lossline/lossline/survey/plan"
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
@@ -129,17 +129,14 @@ type Warning struct {
 
 // BuildResults assembles the results of an assessed survey. warnings are the
 // reader's warnings plus any raised while rendering.
-func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.Change, warnings survey.ProblemList) Results {
+func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
+	s := f.Survey
 	r := Results{
 		Survey: SurveyInfo{Title: s.Title, Site: s.Site, Date: s.Date.Format(dateLayout), Inspector: s.Inspector, Units: string(s.Units)},
 		Items:  []Item{}, Dropped: []Dropped{}, DesignChanges: []DesignChange{}, Warnings: []Warning{},
 		Photos: []PhotoInfo{}, Skipped: []SkippedInfo{},
 	}
-	byCML := map[*survey.CML]survey.Change{}
-	for _, c := range changes {
-		byCML[c.Item.CML] = c
-	}
-	for _, it := range items {
+	for i, it := range f.Items {
 		res, d := it.Result, it.Component.Design
 		item := Item{
 			Rank: it.Rank, Asset: it.Asset.Name, Component: it.Component.Name, CML: it.CML.ID, Location: it.CML.Location,
@@ -160,7 +157,7 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 			RetirementDate:    dateOf(res.Retirement),
 			NextInspection:    dateOf(res.NextInspection),
 			Flags:             codes(res.Flags),
-			Photos:            photosOf(s, it.CML),
+			Photos:            photoNames(f.Photos.OfCML(it.CML)),
 		}
 		if b := res.NextBasis.String(); b != "" {
 			item.NextInspectionWhy = &b
@@ -171,9 +168,9 @@ func BuildResults(s *survey.Survey, items []*survey.Assessed, changes []survey.C
 		if g := it.CML.GPS; g != nil {
 			item.Latitude, item.Longitude = &g.Lat, &g.Lon
 		}
-		risk := plan.RiskOf(it)
+		risk := f.Risk(it)
 		item.Likelihood, item.RiskScore, item.RiskLevel = risk.Likelihood.String(), risk.Score(), risk.Level()
-		ch := byCML[it.CML]
+		ch := f.Changes[i]
 		item.Intervals, item.Change = []Interval{}, codes(ch.Codes)
 		for _, iv := range ch.Intervals {
 			item.Intervals = append(item.Intervals, Interval{Start: iv.Start.Format(dateLayout), End: iv.End.Format(dateLayout), RateMMPerY: *round(&iv.RateMMPerY, 6)})
@@ -263,14 +260,11 @@ func round(v *float64, d int) *float64 {
 	return &x
 }
 
-// photosOf lists the photos of a CML: those its row names, then those placed
-// on it by position.
-func photosOf(s *survey.Survey, m *survey.CML) []string {
-	out := append([]string{}, m.PhotoRefs...)
-	for _, ph := range s.Photos {
-		if ph.Placement.CML == m.ID && ph.Placement.Basis != survey.PlacedNamed {
-			out = append(out, ph.Name)
-		}
+// photoNames lists photos by their names under photos/ (never null).
+func photoNames(photos []*survey.Photo) []string {
+	out := make([]string, len(photos))
+	for i, ph := range photos {
+		out[i] = ph.Name
 	}
 	return out
 }

@@ -88,14 +88,11 @@ type Change struct {
 var flagsThatFollowVisits = []wallloss.Flag{wallloss.FlagSingleVisit, wallloss.FlagEstimate, wallloss.FlagNominalBased, wallloss.FlagNoRate,
 	wallloss.FlagFitNeedsThree, wallloss.FlagNotMeasuredLatest}
 
-// Changes compares each CML's latest visit with the one before, in rank order.
+// Changes compares each CML's latest visit with the one before, in rank order;
+// the photos of each CML come from photos.
 // A CML is accelerating when its latest interval's rate exceeds its long-term
 // rate by more than accelerationPct percent.
-func Changes(s *Survey, items []*Assessed, p wallloss.Policy, accelerationPct float64) []Change {
-	photos := map[string]*Photo{}
-	for _, ph := range s.Photos {
-		photos[ph.Name] = ph
-	}
+func Changes(s *Survey, items []*Assessed, photos *PhotoIndex, p wallloss.Policy, accelerationPct float64) []Change {
 	var out []Change
 	for _, it := range items {
 		c := Change{Item: it, WindowBefore: wallloss.WindowUnknown}
@@ -121,11 +118,7 @@ func Changes(s *Survey, items []*Assessed, p wallloss.Policy, accelerationPct fl
 			c.WindowBefore = wallloss.WindowOf(prev)
 			c.Codes = append(c.Codes, compare(prev, r, c.Intervals, accelerationPct)...)
 		}
-		for _, ref := range it.CML.PhotoRefs {
-			if ph := photos[ref]; ph != nil {
-				c.PhotosCurrent = append(c.PhotosCurrent, ph)
-			}
-		}
+		c.PhotosCurrent = photos.OfCML(it.CML)
 		if s.History != nil {
 			c.PhotosBefore = s.History.PreviousPhotos[it.CML]
 		}

@@ -17,7 +17,7 @@ func demoChanges(t *testing.T) map[string]Change {
 	}
 	items := Assess(s, wallloss.DefaultPolicy)
 	out := map[string]Change{}
-	for _, c := range Changes(s, items, wallloss.DefaultPolicy, 25) {
+	for _, c := range Changes(s, items, IndexPhotos(s), wallloss.DefaultPolicy, 25) {
 		out[c.Item.CML.ID] = c
 	}
 	return out

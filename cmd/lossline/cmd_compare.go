@@ -3,6 +3,7 @@ package main
 import (
 	"github.com/spf13/cobra"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 )
@@ -32,9 +33,8 @@ func runCompare(c *cobra.Command, args []string) error {
 	if problems.HasErrors() {
 		return survey.InputError{Problems: problems}
 	}
-	items := survey.Assess(s, set.Policy)
 	asCSV, _ := c.Flags().GetBool("csv")
-	out, err := report.Comparison(s, survey.Changes(s, items, set.Policy, set.AccelerationPct), set.Display, asCSV)
+	out, err := report.Comparison(findings.Compute(s, set.findings()), set.Display, asCSV)
 	if err != nil {
 		return err
 	}

@@ -5,9 +5,9 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
-	"github.com/lossline/lossline/survey/plan"
 )
 
 func newPlanCmd() *cobra.Command {
@@ -39,23 +39,17 @@ func runPlan(c *cobra.Command, args []string) error {
 	if set.Plan.Budget <= 0 && !c.Flags().Changed(keyBudget) {
 		return usageError{fmt.Errorf("give --budget AMOUNT (or budget: in the settings)")}
 	}
-	var cands []*plan.Candidate
-	var noCost []plan.NoCost
-	var latest *survey.Survey
+	var surveys []*survey.Survey
 	for _, dir := range args {
 		s, problems := survey.LoadSeries(dir, nil, set.Read)
 		if problems.HasErrors() {
 			return survey.InputError{Problems: problems}
 		}
-		cs, nc := plan.Candidates(s.Title, survey.Assess(s, set.Policy), set.Plan.Costs)
-		cands, noCost = append(cands, cs...), append(noCost, nc...)
-		if latest == nil || s.Date.After(latest.Date) {
-			latest = s
-		}
+		surveys = append(surveys, s)
 	}
-	p := set.Plan.Make(cands, latest.Date)
+	r := findings.PlanAcross(surveys, set.findings())
 	asCSV, _ := c.Flags().GetBool("csv")
-	out, err := report.PlanText(p, noCost, set.Plan.Costs.Currency, asCSV)
+	out, err := report.PlanText(r.Plan, r.NoCost, set.Plan.Costs.Currency, asCSV)
 	if err != nil {
 		return err
 	}

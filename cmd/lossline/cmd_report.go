@@ -7,6 +7,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
@@ -48,11 +49,11 @@ func runReport(c *cobra.Command, args []string) error {
 	for _, p := range problems {
 		fmt.Fprintln(stderr, p)
 	}
-	items := survey.Assess(s, set.Policy)
+	f := findings.Compute(s, set.findings())
 	photos := set.Photos
 	photos.Progress = progressBar(stderr, "photos")
-	files, warnings, err := report.Render(s, items, report.Options{
-		Policy: set.Policy, Display: set.Display, AccelerationPct: set.AccelerationPct, Plan: set.Plan, Place: set.Read.Place, Photos: photos, Templates: set.Templates, Created: time.Now(), Version: version,
+	files, warnings, err := report.Render(f, report.Options{
+		Display: set.Display, Place: set.Read.Place, Photos: photos, Templates: set.Templates, Created: time.Now(), Version: version,
 	})
 	if err != nil {
 		return err
@@ -64,7 +65,7 @@ func runReport(c *cobra.Command, args []string) error {
 		return err
 	}
 	below := 0
-	for _, it := range items {
+	for _, it := range f.Items {
 		if it.Result.Class == wallloss.AtOrBelowRequired {
 			below++
 		}
@@ -73,6 +74,6 @@ func runReport(c *cobra.Command, args []string) error {
 	for _, f := range files {
 		fmt.Fprintf(w, "wrote %s (%d KB)\n", filepath.Join(out, f.Name), (len(f.Data)+1023)/1024)
 	}
-	fmt.Fprintf(w, "%d CMLs, %d at or below required thickness, %d warnings\n", len(items), below, len(problems)+len(warnings))
+	fmt.Fprintf(w, "%d CMLs, %d at or below required thickness, %d warnings\n", len(f.Items), below, len(problems)+len(warnings))
 	return nil
 }

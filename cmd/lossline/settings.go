@@ -30,7 +30,7 @@ type settings struct {
 	// AccelerationPct: a CML accelerates when its latest interval's rate is
 	// more than this percentage above its long-term rate.
 	AccelerationPct float64
-	Plan            report.PlanSettings // Budget 0: no plan
+	Plan            plan.Settings // Budget 0: no plan
 	Read            survey.Options
 	Sources         []string // files read, lowest precedence first
 }
@@ -156,7 +156,7 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	if s.Read.MaxMegapixels <= 0 || s.Read.Place.RadiusM < 0 || s.Read.Place.AreaRadiusM < 0 {
 		return s, badInput{fmt.Errorf("%s must be positive, %s and %s not negative", keyMaxMP, keyRadius, keyArea)}
 	}
-	s.Plan = report.PlanSettings{Budget: v.GetFloat64(keyBudget), PerYear: v.GetFloat64(keyPerYear), Years: v.GetInt(keyPlanYears),
+	s.Plan = plan.Settings{Budget: v.GetFloat64(keyBudget), PerYear: v.GetFloat64(keyPerYear), Years: v.GetInt(keyPlanYears),
 		Costs: plan.Costs{Currency: v.GetString(keyCurrency), Unit: map[string]float64{}}}
 	for k := range v.GetStringMap(keyUnitCosts) {
 		price := v.GetFloat64(keyUnitCosts + "." + k)
