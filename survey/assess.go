@@ -64,14 +64,3 @@ func (s *Survey) LatestVisit() time.Time {
 	}
 	return t
 }
-
-// Governing returns the component's most urgent CML (the first in rank order),
-// which governs the component; nil when it has none.
-func Governing(items []*Assessed, c *Component) *Assessed {
-	for _, it := range items {
-		if it.Component == c {
-			return it
-		}
-	}
-	return nil
-}
