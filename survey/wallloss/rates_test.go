@@ -40,7 +40,7 @@ func sameDay(t *testing.T, what string, got *time.Time, want string) {
 }
 
 // API 570 (5th ed., 2024) §7.1.1 long-term and short-term rate and remaining
-// life formulas, worked on a Class 2 CML (REFERENCE.md worked check A):
+// life formulas, worked by hand on a Class 2 CML:
 // 0.300 in (2013-06-01), 0.282 in (2018-06-01), 0.246 in (2023-06-01),
 // t_required 0.100 in. With years = days/365.25 the spans are 9.99863 y and
 // 4.99932 y, so CR_LT = 0.0054007 in/y, CR_ST = 0.0072010 in/y, RL = 20.275 y.
@@ -77,7 +77,8 @@ func TestAssessAPI570WorkedExample(t *testing.T) {
 }
 
 // Nominal thickness at the installed date as the first reading of a CML with
-// one visit (common practice, not code text; REFERENCE.md worked check C):
+// one visit (common practice, not code text; API 570 §7.1.2 leaves the
+// first rate to owner data or early measurements), worked by hand:
 // nominal 0.280 in installed 2015-01-01, first reading 0.262 in on 2023-01-01,
 // 8.000 y → CR_LT = 0.002250 in/y, tagged nominal-based.
 func TestAssessNominalBaseline(t *testing.T) {
@@ -108,7 +109,8 @@ func TestAssessNominalBaseline(t *testing.T) {
 
 // A later reading above an earlier one: no code formula credits growth; the
 // rate is taken as zero and, beyond the gauge tolerance, the CML is flagged for
-// re-measurement (common practice; REFERENCE.md §10).
+// re-measurement (common practice; HSE Research Report RR016 (2002) advises
+// checking scatter against the expected measurement error).
 func TestAssessThicknessIncrease(t *testing.T) {
 	noTol := Policy{IntervalCapYears: 10}
 	res := Assess(Input{
