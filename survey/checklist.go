@@ -40,7 +40,8 @@ type checklistReader struct {
 }
 
 // ParseChecklist reads a survey.md. It returns the survey and every problem
-// found; when the list holds an error the survey is incomplete.
+// found; when the list holds an error the survey is incomplete. It computes
+// nothing: a `required:` method is recorded with its inputs for ComputeRequired.
 func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	r := &checklistReader{
 		file:     file,
@@ -259,7 +260,7 @@ func (r *checklistReader) list(l *ast.List) {
 		for c := item.FirstChild(); c != nil; c = c.NextSibling() {
 			switch c := c.(type) {
 			case *ast.List:
-				if r.comp != nil && r.comp.Design.requiredInputs != nil && c.PreviousSibling() != nil &&
+				if r.comp != nil && r.comp.Design.RequiredMethod != "" && c.PreviousSibling() != nil &&
 					r.lineOf(c.PreviousSibling()) == r.comp.Design.Lines["required"] {
 					r.methodInputs(c)
 					continue
@@ -314,11 +315,11 @@ func (r *checklistReader) methodInputs(l *ast.List) {
 			continue
 		}
 		key := strings.ToLower(strings.Join(strings.Fields(m[1]), " "))
-		if _, dup := d.requiredInputs[key]; dup {
+		if slices.ContainsFunc(d.RequiredInputs, func(in MethodInput) bool { return in.Name == key }) {
 			r.problems.Errorf(r.file, line, "input %q given twice", key)
 			continue
 		}
-		d.requiredInputs[key] = m[2]
+		d.RequiredInputs = append(d.RequiredInputs, MethodInput{Name: key, Value: m[2], Line: line})
 	}
 }
 
@@ -354,7 +355,7 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 		if first := strings.TrimSpace(value); first == "" || (first[0] >= '0' && first[0] <= '9') {
 			return fmt.Errorf("required: %q is not a thickness (a number, optionally followed by mm or in) or a method (%s)", value, strings.Join(required.Methods, ", "))
 		}
-		d.RequiredMethod, d.requiredInputs = value, required.Inputs{}
+		d.RequiredMethod = value
 		return nil
 	},
 	"installed": func(d *Design, value string, _ Unit) error {

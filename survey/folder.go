@@ -39,6 +39,7 @@ func LoadWith(dir string, opt Options) (*Survey, ProblemList) {
 		return nil, l
 	}
 	s, problems := ParseChecklist(file, src)
+	problems = append(problems, ComputeRequired(s)...)
 	s.Dir = dir
 	photos, skipped, photoProblems := ScanPhotos(dir, opt.MaxMegapixels)
 	s.Photos, s.Skipped = photos, skipped
