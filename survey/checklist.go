@@ -40,7 +40,8 @@ type checklistReader struct {
 }
 
 // ParseChecklist reads a survey.md. It returns the survey and every problem
-// found; when the list holds an error the survey is incomplete. It computes
+// found, in the order found; when the list holds an error the survey is
+// incomplete. It computes
 // nothing: a `required:` method is recorded with its inputs for ComputeRequired.
 func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	r := &checklistReader{
@@ -57,8 +58,6 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 		r.block(n)
 	}
 	r.finish()
-	r.problems.Sort()
-	r.survey.Problems = r.problems.Warnings()
 	return r.survey, r.problems
 }
 

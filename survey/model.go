@@ -26,7 +26,7 @@ type Survey struct {
 	Previous  []string  // earlier survey folders named in the front matter, relative to Dir
 	PrevLine  int       // line of the previous: key
 	History   *History  // what earlier surveys added; nil when there are none
-	Problems  []Problem // warnings found while reading (errors stop the read)
+	Problems  []Problem // warnings, sorted, as Load or LoadSeries returned them (errors stop the read)
 }
 
 // Asset is a tank, a piping system, a bridge: a `# heading` in the checklist.
