@@ -6,8 +6,8 @@ import (
 	"testing"
 )
 
-// pipeDesign is a component whose required thickness is an ASME B31.3 method
-// with its inputs on lines 10 to 15 of the checklist.
+// pipeDesign is a design list whose required thickness is an ASME B31.3
+// method with six inputs.
 const pipeDesign = "- nominal: 10\n- required: ASME B31.3 pipe\n  - pressure: 4.0 MPa\n  - Outside  Diameter: 168.3 mm\n" +
 	"  - allowable stress: 137.9 MPa\n  - joint factor: 1\n  - coefficient Y: 0.4\n  - allowance: 1.5 mm\n"
 
