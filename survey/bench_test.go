@@ -28,7 +28,7 @@ func BenchmarkParseAndAssess(b *testing.B) {
 	b.SetBytes(int64(len(src)))
 	b.ReportAllocs()
 	for b.Loop() {
-		s, problems := ParseChecklist("survey.md", src)
+		s, problems := readChecklist("survey.md", src)
 		if problems.HasErrors() {
 			b.Fatal(problems)
 		}

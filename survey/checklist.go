@@ -2,6 +2,7 @@ package survey
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"regexp"
 	"slices"
@@ -39,7 +40,9 @@ type checklistReader struct {
 }
 
 // ParseChecklist reads a survey.md. It returns the survey and every problem
-// found; when the list holds an error the survey is incomplete.
+// found, in the order found; when the list holds an error the survey is
+// incomplete. It computes
+// nothing: a `required:` method is recorded with its inputs for ComputeRequired.
 func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	r := &checklistReader{
 		file:     file,
@@ -55,8 +58,6 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 		r.block(n)
 	}
 	r.finish()
-	r.problems.Sort()
-	r.survey.Problems = r.problems.Warnings()
 	return r.survey, r.problems
 }
 
@@ -258,7 +259,7 @@ func (r *checklistReader) list(l *ast.List) {
 		for c := item.FirstChild(); c != nil; c = c.NextSibling() {
 			switch c := c.(type) {
 			case *ast.List:
-				if r.comp != nil && r.comp.Design.requiredInputs != nil && c.PreviousSibling() != nil &&
+				if r.comp != nil && r.comp.Design.RequiredMethod != "" && c.PreviousSibling() != nil &&
 					r.lineOf(c.PreviousSibling()) == r.comp.Design.Lines["required"] {
 					r.methodInputs(c)
 					continue
@@ -289,7 +290,7 @@ func (r *checklistReader) listText(block ast.Node) {
 	if r.comp != nil {
 		if m := designItem.FindStringSubmatch(src); m != nil {
 			key := strings.ToLower(m[1])
-			if slices.Contains(designKeys, key) {
+			if _, known := designKeys[key]; known {
 				r.design(key, m[2], line)
 				return
 			}
@@ -297,9 +298,6 @@ func (r *checklistReader) listText(block ast.Node) {
 	}
 	r.note(Note{Markdown: src, Bullet: true, Line: line})
 }
-
-// designKeys are the keys of a component's design list.
-var designKeys = []string{"nominal", "required", "installed", "consequence", "rate model", "assumed rate", "corrosivity", "metal", "interval rule", "repair cost", "repair", "repair thickness"}
 
 // methodInputs reads the nested `name: value` list under `required: METHOD`.
 func (r *checklistReader) methodInputs(l *ast.List) {
@@ -316,14 +314,15 @@ func (r *checklistReader) methodInputs(l *ast.List) {
 			continue
 		}
 		key := strings.ToLower(strings.Join(strings.Fields(m[1]), " "))
-		if _, dup := d.requiredInputs[key]; dup {
+		if slices.ContainsFunc(d.RequiredInputs, func(in MethodInput) bool { return in.Name == key }) {
 			r.problems.Errorf(r.file, line, "input %q given twice", key)
 			continue
 		}
-		d.requiredInputs[key] = m[2]
+		d.RequiredInputs = append(d.RequiredInputs, MethodInput{Name: key, Value: m[2], Line: line})
 	}
 }
 
+// design reads one `key: value` item of the component's design list.
 func (r *checklistReader) design(key, value string, line int) {
 	d := &r.comp.Design
 	if first, dup := d.Lines[key]; dup {
@@ -331,100 +330,117 @@ func (r *checklistReader) design(key, value string, line int) {
 		return
 	}
 	d.Lines[key] = line
-	switch key {
-	case "required":
-		if v, err := ParseThickness(value, r.survey.Units); err == nil {
+	if err := designKeys[key](d, value, r.survey.Units); err != nil {
+		r.problems.Errorf(r.file, line, "%v", err)
+	}
+}
+
+// designKeys maps each key of a component's design list to the function that
+// reads its value into the design; units is the unit of a bare number.
+var designKeys = map[string]func(d *Design, value string, units Unit) error{
+	"nominal": func(d *Design, value string, units Unit) error {
+		v, err := ParseThickness(value, units)
+		if err != nil {
+			return fmt.Errorf("nominal: %q is not a thickness (a number, optionally followed by mm or in)", value)
+		}
+		d.NominalMM = &v
+		return nil
+	},
+	"required": func(d *Design, value string, units Unit) error {
+		if v, err := ParseThickness(value, units); err == nil {
 			d.RequiredMM = &v
-			return
+			return nil
 		}
 		if first := strings.TrimSpace(value); first == "" || (first[0] >= '0' && first[0] <= '9') {
-			r.problems.Errorf(r.file, line, "required: %q is not a thickness (a number, optionally followed by mm or in) or a method (%s)", value, strings.Join(required.Methods, ", "))
-			return
+			return fmt.Errorf("required: %q is not a thickness (a number, optionally followed by mm or in) or a method (%s)", value, strings.Join(required.Methods, ", "))
 		}
-		d.RequiredMethod, d.requiredInputs = value, required.Inputs{}
-	case "rate model":
+		d.RequiredMethod = value
+		return nil
+	},
+	"installed": func(d *Design, value string, _ Unit) error {
+		dt, ok := ParseVisitDate(value)
+		if !ok {
+			return fmt.Errorf("installed: %q is not a date such as 2009-06-30 or 2009-06", value)
+		}
+		d.Installed = &dt
+		return nil
+	},
+	"consequence": func(d *Design, value string, _ Unit) error {
+		c, ok := ParseConsequence(value)
+		if !ok {
+			return fmt.Errorf("consequence: %q is not very low, low, medium, high or very high", value)
+		}
+		d.Consequence = c
+		return nil
+	},
+	"rate model": func(d *Design, value string, _ Unit) error {
 		m := strings.ToLower(strings.TrimSpace(value))
 		if !slices.Contains(RateModels, m) {
-			r.problems.Errorf(r.file, line, "rate model %q is not one of %s", value, strings.Join(RateModels, ", "))
-			return
+			return fmt.Errorf("rate model %q is not one of %s", value, strings.Join(RateModels, ", "))
 		}
 		d.RateModel = m
-	case "assumed rate":
-		v, err := ParseRate(value, r.survey.Units)
+		return nil
+	},
+	"assumed rate": func(d *Design, value string, units Unit) error {
+		v, err := ParseRate(value, units)
 		if err != nil {
-			r.problems.Errorf(r.file, line, "assumed rate: %v", err)
-			return
+			return fmt.Errorf("assumed rate: %w", err)
 		}
 		d.AssumedRateMMPerY = &v
-	case "corrosivity":
+		return nil
+	},
+	"corrosivity": func(d *Design, value string, _ Unit) error {
 		c, err := wallloss.ParseCorrosivity(value)
 		if err != nil {
-			r.problems.Errorf(r.file, line, "%v", err)
-			return
+			return err
 		}
 		d.Corrosivity = c
-	case "repair cost":
+		return nil
+	},
+	"metal": func(d *Design, value string, _ Unit) error {
+		m := strings.ToLower(strings.Join(strings.Fields(value), " "))
+		if !slices.Contains(wallloss.Metals, m) {
+			return fmt.Errorf("metal %q: the atmospheric model covers %s", value, strings.Join(wallloss.Metals, " and "))
+		}
+		d.Metal = m
+		return nil
+	},
+	"interval rule": func(d *Design, value string, _ Unit) error {
+		rule, err := wallloss.ParseIntervalRule(value)
+		if err != nil {
+			return err
+		}
+		d.Rule = &rule
+		return nil
+	},
+	"repair cost": func(d *Design, value string, _ Unit) error {
 		v, err := ParseAmount(value)
 		if err != nil {
-			r.problems.Errorf(r.file, line, "repair cost: %v", err)
-			return
+			return fmt.Errorf("repair cost: %w", err)
 		}
 		d.RepairCost = &v
-	case "repair":
+		return nil
+	},
+	"repair": func(d *Design, value string, _ Unit) error {
 		f := strings.Fields(value)
 		if len(f) != 2 {
-			r.problems.Errorf(r.file, line, "repair: write a quantity and a priced item of the settings, e.g. `40 recoat-m2`")
-			return
+			return errors.New("repair: write a quantity and a priced item of the settings, e.g. `40 recoat-m2`")
 		}
 		q, err := ParseAmount(f[0])
 		if err != nil {
-			r.problems.Errorf(r.file, line, "repair: %v", err)
-			return
+			return fmt.Errorf("repair: %w", err)
 		}
 		d.RepairQuantity, d.RepairItem = q, strings.ToLower(f[1])
-	case "repair thickness":
-		v, err := ParseThickness(value, r.survey.Units)
+		return nil
+	},
+	"repair thickness": func(d *Design, value string, units Unit) error {
+		v, err := ParseThickness(value, units)
 		if err != nil {
-			r.problems.Errorf(r.file, line, "repair thickness: %q is not a thickness", value)
-			return
+			return fmt.Errorf("repair thickness: %q is not a thickness", value)
 		}
 		d.RepairThicknessMM = &v
-	case "metal":
-		m := strings.ToLower(strings.Join(strings.Fields(value), " "))
-		if !slices.Contains(wallloss.Metals, m) {
-			r.problems.Errorf(r.file, line, "metal %q: the atmospheric model covers %s", value, strings.Join(wallloss.Metals, " and "))
-			return
-		}
-		d.Metal = m
-	case "interval rule":
-		rule, err := wallloss.ParseIntervalRule(value)
-		if err != nil {
-			r.problems.Errorf(r.file, line, "%v", err)
-			return
-		}
-		d.Rule = &rule
-	case "nominal":
-		v, err := ParseThickness(value, r.survey.Units)
-		if err != nil {
-			r.problems.Errorf(r.file, line, "%s: %q is not a thickness (a number, optionally followed by mm or in)", key, value)
-			return
-		}
-		d.NominalMM = &v
-	case "installed":
-		dt, ok := ParseVisitDate(value)
-		if !ok {
-			r.problems.Errorf(r.file, line, "installed: %q is not a date such as 2009-06-30 or 2009-06", value)
-			return
-		}
-		d.Installed = &dt
-	case "consequence":
-		c, ok := ParseConsequence(value)
-		if !ok {
-			r.problems.Errorf(r.file, line, "consequence: %q is not very low, low, medium, high or very high", value)
-			return
-		}
-		d.Consequence = c
-	}
+		return nil
+	},
 }
 
 // ParseConsequence reads very low, low, medium, high or very high.

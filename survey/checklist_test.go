@@ -201,7 +201,7 @@ func TestReadmeExampleParses(t *testing.T) {
 	if !ok || !ok2 {
 		t.Fatal("README has no ````markdown example")
 	}
-	s, problems := ParseChecklist("README.md", []byte(example))
+	s, problems := readChecklist("README.md", []byte(example))
 	if problems.HasErrors() || len(problems) != 0 {
 		t.Fatalf("README example: %v", problems)
 	}
@@ -232,7 +232,7 @@ func TestDesignProblems(t *testing.T) {
 		{"required above nominal by method", "- required: section loss\n  - allowed section loss: 140 %\n", "survey.md:9: required: allowed section loss must be between 0 and 100 %"},
 	} {
 		src := head + c.list + "\n| CML | 2024-01-01 |\n|---|---|\n| A | 9 |\n"
-		_, problems := ParseChecklist("survey.md", []byte(src))
+		_, problems := readChecklist("survey.md", []byte(src))
 		wantProblem(t, c.name, problems, c.want)
 	}
 }
@@ -267,7 +267,7 @@ func TestReadmeMethodSnippets(t *testing.T) {
 		n++
 		src := "---\ntitle: x\ndate: 2025-01-01\nunits: mm\n---\n## C\n\n- nominal: 16\n" + snippet +
 			"\n| CML | 2024-01-01 |\n|---|---|\n| A | 9 |\n"
-		s, problems := ParseChecklist("survey.md", []byte(src))
+		s, problems := readChecklist("survey.md", []byte(src))
 		if problems.HasErrors() {
 			t.Errorf("README snippet %d: %v", n, problems)
 			continue
@@ -292,6 +292,12 @@ func TestParseAmount(t *testing.T) {
 			t.Errorf("ParseAmount(%q): no error", bad)
 		}
 	}
+}
+
+// readChecklist reads a checklist and computes its required thicknesses, as Load does.
+func readChecklist(file string, src []byte) (*Survey, ProblemList) {
+	s, problems := ParseChecklist(file, src)
+	return s, append(problems, ComputeRequired(s)...)
 }
 
 // wantProblem fails unless a problem starts with want.

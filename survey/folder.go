@@ -26,7 +26,10 @@ func Load(dir string) (*Survey, ProblemList) { return LoadWith(dir, DefaultOptio
 // LoadWith reads a survey folder: the checklist and the photos it names or
 // holds. It never writes to the folder. Problems come back sorted; the survey
 // is usable only when none of them is an error. Photos are placed by LoadSeries.
-func LoadWith(dir string, opt Options) (*Survey, ProblemList) {
+func LoadWith(dir string, opt Options) (*Survey, ProblemList) { return sorted(loadFolder(dir, opt)) }
+
+// loadFolder is LoadWith before its problems are sorted.
+func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
 	file := filepath.Join(dir, ChecklistFile)
 	src, err := os.ReadFile(file)
 	if err != nil {
@@ -39,13 +42,22 @@ func LoadWith(dir string, opt Options) (*Survey, ProblemList) {
 		return nil, l
 	}
 	s, problems := ParseChecklist(file, src)
+	problems = append(problems, ComputeRequired(s)...)
 	s.Dir = dir
 	photos, skipped, photoProblems := ScanPhotos(dir, opt.MaxMegapixels)
 	s.Photos, s.Skipped = photos, skipped
 	problems = append(problems, photoProblems...)
 	problems = append(problems, linkPhotos(s)...)
+	return s, problems
+}
+
+// sorted sorts the problems once, at the end of a public entry point, and
+// keeps the warnings on the survey.
+func sorted(s *Survey, problems ProblemList) (*Survey, ProblemList) {
 	problems.Sort()
-	s.Problems = problems.Warnings()
+	if s != nil {
+		s.Problems = problems.Warnings()
+	}
 	return s, problems
 }
 

@@ -19,7 +19,7 @@ func FuzzParseChecklist(f *testing.F) {
 		}
 	}
 	f.Fuzz(func(t *testing.T, src []byte) {
-		s, problems := ParseChecklist("survey.md", src)
+		s, problems := readChecklist("survey.md", src)
 		if s == nil {
 			t.Fatal("nil survey")
 		}

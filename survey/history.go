@@ -35,7 +35,12 @@ type DesignChange struct {
 // in extra (relative to the working directory), and merges their readings into
 // the newest survey by CML id. Folders may be given in any order.
 func LoadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) {
-	s, problems := LoadWith(dir, opt)
+	return sorted(loadSeries(dir, extra, opt))
+}
+
+// loadSeries is LoadSeries before its problems are sorted.
+func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) {
+	s, problems := loadFolder(dir, opt)
 	if s == nil || problems.HasErrors() {
 		return s, problems
 	}
@@ -51,7 +56,7 @@ func LoadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 				continue
 			}
 			seen[absPath(d)] = true
-			e, p := LoadWith(d, opt)
+			e, p := loadFolder(d, opt)
 			if e == nil {
 				problems.Errorf(from.File, line, "previous survey %s cannot be read", d)
 				problems = append(problems, p...)
@@ -74,8 +79,6 @@ func LoadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 	if !problems.HasErrors() {
 		problems = append(problems, PlacePhotos(s, opt.Place)...)
 	}
-	problems.Sort()
-	s.Problems = problems.Warnings()
 	return s, problems
 }
 

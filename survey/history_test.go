@@ -1,6 +1,7 @@
 package survey
 
 import (
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -60,6 +61,22 @@ func TestMergeSeries(t *testing.T) {
 	}
 	if len(cmls[0].Component.VisitDates) != 4 {
 		t.Errorf("component visit dates %v", cmls[0].Component.VisitDates)
+	}
+}
+
+// A required thickness computed by a method in an earlier survey is inherited
+// with its derivation by a later survey that writes none.
+func TestMergeInheritsComputedRequired(t *testing.T) {
+	root := t.TempDir()
+	writeSurvey(t, root, "old", "2021-05-01", "", pipeDesign, "| CML | 2021-05-01 |\n|---|---|\n| C-1 | 9.3 |\n")
+	newest := writeSurvey(t, root, "new", "2026-05-01", "previous: ../old\n", "- nominal: 10\n", "| CML | 2026-05-01 |\n|---|---|\n| C-1 | 9.0 |\n")
+	s, problems := LoadSeries(newest, nil, DefaultOptions)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	d := s.Assets[0].Components[0].Design
+	if d.RequiredMM == nil || math.Abs(*d.RequiredMM-pipeRequiredMM) > 1e-6 || d.RequiredCalc == nil {
+		t.Errorf("inherited required %v (calc %v), want %v mm", d.RequiredMM, d.RequiredCalc, pipeRequiredMM)
 	}
 }
 

@@ -26,7 +26,7 @@ type Survey struct {
 	Previous  []string  // earlier survey folders named in the front matter, relative to Dir
 	PrevLine  int       // line of the previous: key
 	History   *History  // what earlier surveys added; nil when there are none
-	Problems  []Problem // warnings found while reading (errors stop the read)
+	Problems  []Problem // warnings, sorted, as Load or LoadSeries returned them (errors stop the read)
 }
 
 // Asset is a tank, a piping system, a bridge: a `# heading` in the checklist.
@@ -54,16 +54,17 @@ type Component struct {
 // Design is a component's design data from its `key: value` list.
 type Design struct {
 	NominalMM   *float64
-	RequiredMM  *float64 // written, or computed by RequiredCalc
+	RequiredMM  *float64 // written, or set by ComputeRequired from RequiredMethod
 	Installed   *VisitDate
 	Consequence Consequence
 	Lines       map[string]int // key -> line, for messages
 
-	// RequiredMethod is the method written after `required:`, if not a number;
-	// RequiredCalc is its result with every input and step.
+	// RequiredMethod is the method written after `required:`, if not a number,
+	// and RequiredInputs the items written under it. RequiredCalc is the
+	// method's result with every input and step, set by ComputeRequired.
 	RequiredMethod string
+	RequiredInputs []MethodInput
 	RequiredCalc   *required.Calculation
-	requiredInputs required.Inputs
 
 	RateModel         string                 // "" for the settings' rate model
 	AssumedRateMMPerY *float64               // single-visit estimate
@@ -77,6 +78,13 @@ type Design struct {
 	RepairQuantity    float64
 	RepairItem        string
 	RepairThicknessMM *float64
+}
+
+// MethodInput is one `name: value` item under a `required:` method, as written.
+type MethodInput struct {
+	Name  string // lower case, single spaces
+	Value string
+	Line  int
 }
 
 // RateModels are the rate models a component or the settings may choose.

@@ -7,9 +7,6 @@ import (
 
 	"github.com/yuin/goldmark/ast"
 	east "github.com/yuin/goldmark/extension/ast"
-
-	"github.com/lossline/lossline/survey/required"
-	"github.com/lossline/lossline/survey/wallloss"
 )
 
 // column roles in a reading table.
@@ -170,29 +167,6 @@ func parseLatLon(s string) (LatLon, bool) {
 	return LatLon{Lat: lat, Lon: lon}, true
 }
 
-// computeRequired runs the required-thickness method written for a component.
-func (r *checklistReader) computeRequired(c *Component) {
-	d := &c.Design
-	if d.RequiredMethod == "" {
-		return
-	}
-	nominal := 0.0
-	if d.NominalMM != nil {
-		nominal = *d.NominalMM
-	}
-	calc, err := required.Compute(d.RequiredMethod, d.requiredInputs, nominal)
-	if err != nil {
-		r.problems.Errorf(r.file, d.Lines["required"], "required: %v", err)
-		return
-	}
-	d.RequiredCalc = &calc
-	d.RequiredMM = &calc.RequiredMM
-	if d.Rule != nil && d.Rule.Kind == wallloss.RuleAPI653Floor {
-		v := strings.ToLower(d.requiredInputs["release prevention barrier"])
-		d.Rule.Barrier = v == "yes" || v == "true"
-	}
-}
-
 // finish checks what can only be checked once the whole checklist is read.
 func (r *checklistReader) finish() {
 	if len(r.survey.Assets) == 0 || len(r.survey.AllCMLs()) == 0 {
@@ -200,15 +174,6 @@ func (r *checklistReader) finish() {
 	}
 	for _, a := range r.survey.Assets {
 		for _, c := range a.Components {
-			r.computeRequired(c)
-			d := c.Design
-			if d.NominalMM != nil && d.RequiredMM != nil && *d.RequiredMM > *d.NominalMM {
-				r.problems.Errorf(r.file, d.Lines["required"], "required %s %s is above nominal %s %s in %q",
-					r.survey.Units.Format(*d.RequiredMM), r.survey.Units, r.survey.Units.Format(*d.NominalMM), r.survey.Units, c.Name)
-			}
-			if d.RequiredMM == nil {
-				r.problems.Warnf(r.file, c.Line, "%q has no required thickness: no remaining life can be computed", c.Name)
-			}
 			if len(c.CMLs) == 0 {
 				r.problems.Warnf(r.file, c.Line, "%q has no reading table", c.Name)
 			}
