@@ -43,7 +43,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	}
 	model, modelText := d.f.Settings.Policy.RateModel, ""
 	if des.RateModel != "" {
-		model, modelText = wallloss.RateModel(des.RateModel), " (set for this component)"
+		model, modelText = des.RateModel, " (set for this component)"
 	}
 	rule := d.f.Settings.Policy.Rule
 	if des.Rule != nil {

@@ -37,7 +37,7 @@ func inputFor(loc Located, visits []Visit, latest time.Time) wallloss.Input {
 	d := loc.Component.Design
 	in := wallloss.Input{
 		NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest,
-		RateModel: wallloss.RateModel(d.RateModel), Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity, Metal: d.Metal,
+		RateModel: d.RateModel, Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity, Metal: d.Metal,
 	}
 	if d.Installed != nil {
 		in.Installed = &d.Installed.Time

@@ -374,12 +374,9 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 		return nil
 	},
 	"rate model": func(d *Design, value string, _ Unit) error {
-		m := strings.ToLower(strings.TrimSpace(value))
-		if !slices.Contains(RateModels, m) {
-			return fmt.Errorf("rate model %q is not one of %s", value, strings.Join(RateModels, ", "))
-		}
+		m, err := wallloss.ParseRateModel(value)
 		d.RateModel = m
-		return nil
+		return err
 	},
 	"assumed rate": func(d *Design, value string, units Unit) error {
 		v, err := ParseRate(value, units)

@@ -66,7 +66,7 @@ type Design struct {
 	RequiredInputs []MethodInput
 	RequiredCalc   *required.Calculation
 
-	RateModel         string                 // "" for the settings' rate model
+	RateModel         wallloss.RateModel     // "" for the settings' rate model
 	AssumedRateMMPerY *float64               // single-visit estimate
 	Corrosivity       wallloss.Corrosivity   // ISO 9223 category, single-visit estimate
 	Metal             string                 // of the atmospheric estimate; "" for carbon steel
@@ -87,14 +87,6 @@ type MethodInput struct {
 	Line  int
 }
 
-// RateModels are the rate models a component or the settings may choose.
-var RateModels = func() []string {
-	var names []string
-	for _, m := range wallloss.ChoosableRateModels {
-		names = append(names, string(m))
-	}
-	return names
-}()
 
 // CML is a condition monitoring location: one row of a reading table.
 type CML struct {

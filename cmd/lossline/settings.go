@@ -145,11 +145,11 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 	if err != nil {
 		return s, badInput{fmt.Errorf("%s: %v", keyRule, err)}
 	}
-	model := strings.ToLower(v.GetString(keyRateModel))
-	if !slices.Contains(survey.RateModels, model) {
-		return s, badInput{fmt.Errorf("%s %q is not one of %s", keyRateModel, model, strings.Join(survey.RateModels, ", "))}
+	model, err := wallloss.ParseRateModel(v.GetString(keyRateModel))
+	if err != nil {
+		return s, badInput{fmt.Errorf("%s: %v", keyRateModel, err)}
 	}
-	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: wallloss.RateModel(model), Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
+	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: model, Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
 	s.AccelerationPct = v.GetFloat64(keyAccel)
 	s.Read = survey.Options{MaxMegapixels: v.GetFloat64(keyMaxMP), Place: survey.PlaceOptions{
 		Auto: v.GetBool(keyAutoPlace), RadiusM: v.GetFloat64(keyRadius), AreaRadiusM: v.GetFloat64(keyArea)}}
