@@ -22,8 +22,8 @@ const (
 	kindPrices             // item: amount lines; settings files only
 )
 
-// maxMagnitude bounds every number: above 1e15 float64 no longer holds
-// every whole amount with a cent to spare, and no setting needs more.
+// maxMagnitude bounds every number: float64 holds every whole number exactly
+// up to 2^53 (about 9.007e15), and no budget or other setting comes near 1e15.
 const maxMagnitude = 1e15
 
 var (
@@ -31,6 +31,7 @@ var (
 	// groupedAmount is an amount with its digits grouped in threes by
 	// spaces, no-break spaces or (narrow) thin spaces: 1 250 000.50.
 	groupedAmount = regexp.MustCompile(`^[+-]?\d{1,3}([ \x{00A0}\x{2009}\x{202F}]\d{3})+(\.\d*)?$`)
+	digitsOnly    = regexp.MustCompile(`^[+-]?[\d., \x{00A0}\x{2009}\x{202F}]+$`)
 	groupSpaces   = strings.NewReplacer(" ", "", "\u00a0", "", "\u2009", "", "\u202f", "")
 )
 
@@ -74,7 +75,7 @@ func parseNumber(t string, amount bool) (float64, error) {
 		switch {
 		case strings.Contains(low, "inf") || strings.Contains(low, "nan"):
 			return 0, errors.New("not a finite number")
-		case amount && strings.ContainsAny(t, ", "):
+		case amount && digitsOnly.MatchString(t):
 			return 0, errors.New("not a number (group digits in threes by spaces and write decimals with a point: 50 000.50)")
 		case strings.Contains(t, ","):
 			return 0, errors.New("not a number (write decimals with a point: 0.28)")
