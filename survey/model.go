@@ -87,7 +87,6 @@ type MethodInput struct {
 	Line  int
 }
 
-
 // CML is a condition monitoring location: one row of a reading table.
 type CML struct {
 	ID        string

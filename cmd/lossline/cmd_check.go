@@ -14,8 +14,9 @@ func newCheckCmd() *cobra.Command {
 		Short: "Check a survey folder and list every problem, writing nothing",
 		Long: "Prints every problem as path:line: message. Exits 1 if any is an error, 0 otherwise\n" +
 			"(warnings alone do not fail the check).",
-		Args: exactArgs(1),
-		RunE: runCheck,
+		Example: "  lossline check site-2026",
+		Args:    cobra.ExactArgs(1),
+		RunE:    runCheck,
 	}
 	c.Flags().StringSlice("previous", nil, "earlier survey `DIR`s whose readings merge in (besides the front matter's previous:)")
 	addSettingFlags(c)

@@ -15,8 +15,9 @@ func newCompareCmd() *cobra.Command {
 		Long: "Merges OLD's readings into NEW (by CML id, with NEW's was column for renamed CMLs) and prints\n" +
 			"per CML the previous and current thickness, the latest interval's rate, the repair window\n" +
 			"before and now, and what changed; then CMLs no longer listed and design data that changed.",
-		Args: exactArgs(2),
-		RunE: runCompare,
+		Example: "  lossline compare site-2022 site-2026 --csv",
+		Args:    cobra.ExactArgs(2),
+		RunE:    runCompare,
 	}
 	c.Flags().Bool("csv", false, "print CSV instead of an aligned table")
 	addSettingFlags(c)

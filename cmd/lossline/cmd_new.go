@@ -16,11 +16,12 @@ import (
 
 func newNewCmd() *cobra.Command {
 	c := &cobra.Command{
-		Use:   "new DIR",
-		Short: "Write a ready-to-fill survey folder",
-		Long:  "Creates DIR with survey.md, lossline.yaml and an empty photos folder. Existing files are never overwritten.",
-		Args:  exactArgs(1),
-		RunE:  runNew,
+		Use:     "new DIR",
+		Short:   "Write a ready-to-fill survey folder",
+		Long:    "Creates DIR with survey.md, lossline.yaml and an empty photos folder. Existing files are never overwritten.",
+		Example: "  lossline new site-2027",
+		Args:    cobra.ExactArgs(1),
+		RunE:    runNew,
 	}
 	c.Flags().String("templates", "", "`folder` whose scaffold/ files replace the built-in ones")
 	return c

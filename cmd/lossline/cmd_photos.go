@@ -13,8 +13,9 @@ func newPhotosCmd() *cobra.Command {
 		Short: "List every file of the photos folder and where it is placed",
 		Long: "Prints, for every file under SURVEY/photos: time taken, latitude, longitude, orientation,\n" +
 			"the CML, component or asset it is placed on, the distance, and the basis; or why it was skipped.",
-		Args: exactArgs(1),
-		RunE: runPhotos,
+		Example: "  lossline photos site-2026 --placement-radius-m 10",
+		Args:    cobra.ExactArgs(1),
+		RunE:    runPhotos,
 	}
 	c.Flags().Bool("csv", false, "print CSV instead of an aligned table")
 	c.Flags().StringSlice("previous", nil, "earlier survey `DIR`s whose readings merge in")

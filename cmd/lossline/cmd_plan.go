@@ -18,6 +18,7 @@ func newPlanCmd() *cobra.Command {
 			"required thickness first, then the best set within the budget (0/1 knapsack). Over several years,\n" +
 			"components are repaired before their retirement dates where the budgets allow; those that cannot\n" +
 			"be are named with the money missing. Settings (costs, currency) come from the first survey folder.",
+		Example: "  lossline plan site-2026 site-2026-tanks --budget \"60 000\" --plan-years 3 --budget-per-year 45000",
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) == 0 {
 				return usageError{fmt.Errorf("plan needs at least one survey folder")}
@@ -36,7 +37,7 @@ func runPlan(c *cobra.Command, args []string) error {
 	if err != nil {
 		return err
 	}
-	if set.Plan.Budget <= 0 && !c.Flags().Changed(keyBudget) {
+	if set.Plan.Budget <= 0 && !c.Flags().Changed("budget") {
 		return usageError{fmt.Errorf("give --budget AMOUNT (or budget: in the settings)")}
 	}
 	var surveys []*survey.Survey

@@ -20,8 +20,9 @@ func newReportCmd() *cobra.Command {
 		Long: "Reads SURVEY/survey.md and SURVEY/photos, computes rates, remaining life and dates,\n" +
 			"and writes OUTDIR/report.pdf, OUTDIR/results.json and OUTDIR/results.csv.\n" +
 			"Outputs are replaced only when all three are written; input files are never changed.",
-		Args: exactArgs(1),
-		RunE: runReport,
+		Example: "  lossline report site-2026 -o site-2026/report --previous site-2022",
+		Args:    cobra.ExactArgs(1),
+		RunE:    runReport,
 	}
 	c.Flags().StringP("out", "o", "", "output `OUTDIR` (default SURVEY/report)")
 	c.Flags().Bool("no-photo-cache", false, "reduce every photo again instead of reusing the cache in the user cache folder")

@@ -3,11 +3,11 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"os"
 	"runtime/debug"
-	"strings"
 
 	"github.com/lossline/lossline/survey"
 )
@@ -37,46 +37,51 @@ func main() {
 // memoryLimit is the soft limit of the Go heap (runtime/debug.SetMemoryLimit).
 const memoryLimit = 140 << 20
 
-// run executes the command line and maps its error to an exit code.
+// run executes the command line and returns its exit code.
 func run(args []string, stdout, stderr io.Writer) int {
 	root := newRoot(stdout, stderr)
 	root.SetArgs(args)
-	err := root.Execute()
-	if err != nil && isCobraUsage(err) {
-		err = usageError{err}
-	}
-	switch e := err.(type) {
-	case nil:
+	return exitCode(root.Execute(), stderr)
+}
+
+// exitCode prints err and maps it to an exit code, the one place errors
+// become codes. A wrapped error keeps its code.
+func exitCode(err error, stderr io.Writer) int {
+	var (
+		inputErr survey.InputError
+		usage    usageError
+		bad      badInput
+		exit     silentExit
+	)
+	switch {
+	case err == nil:
 		return exitOK
-	case survey.InputError:
-		fmt.Fprintln(stderr, e.Error())
+	case errors.As(err, &inputErr):
+		fmt.Fprintln(stderr, err)
 		return exitBadInput
-	case usageError:
-		fmt.Fprintf(stderr, "lossline: %v\nRun 'lossline --help' for usage.\n", e.error)
+	case errors.As(err, &usage):
+		fmt.Fprintf(stderr, "lossline: %v\nRun 'lossline --help' for usage.\n", err)
 		return exitUsage
-	case badInput:
-		fmt.Fprintf(stderr, "%v\n", e.error)
+	case errors.As(err, &bad):
+		fmt.Fprintln(stderr, err)
 		return exitBadInput
-	case silentExit:
-		return int(e)
+	case errors.As(err, &exit):
+		return int(exit)
 	default:
 		fmt.Fprintf(stderr, "lossline: %v\n", err)
 		return exitOther
 	}
 }
 
-// isCobraUsage recognises the usage errors cobra raises itself.
-func isCobraUsage(err error) bool {
-	msg := err.Error()
-	return strings.HasPrefix(msg, "unknown command") || strings.HasPrefix(msg, "unknown flag") ||
-		strings.HasPrefix(msg, "unknown shorthand flag")
-}
-
 // usageError is a wrong command line (exit 2).
 type usageError struct{ error }
 
+func (e usageError) Unwrap() error { return e.error }
+
 // badInput is an input problem that is not a checklist problem (exit 1).
 type badInput struct{ error }
+
+func (e badInput) Unwrap() error { return e.error }
 
 // silentExit ends with a code after the command has printed what it had to.
 type silentExit int

@@ -50,7 +50,7 @@ func TestExitCodes(t *testing.T) {
 		{[]string{"report"}, exitUsage, "accepts 1 arg"},
 		{[]string{"report", "a", "--no-such-flag"}, exitUsage, "unknown flag"},
 		{[]string{"frobnicate"}, exitUsage, "unknown command"},
-		{[]string{"check", "../../testdata/demo", "--interval-cap-years", "0"}, exitBadInput, "interval-cap-years must be between"},
+		{[]string{"report", "../../testdata/demo", "-o", "OUT", "--interval-cap-years", "0"}, exitBadInput, "--interval-cap-years: interval-cap-years must be between"},
 	} {
 		for i, a := range c.args {
 			if a == "OUT" {

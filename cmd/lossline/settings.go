@@ -3,9 +3,12 @@ package main
 import (
 	"errors"
 	"fmt"
+	"io/fs"
+	"maps"
 	"os"
 	"path/filepath"
 	"slices"
+	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -32,194 +35,217 @@ type settings struct {
 	AccelerationPct float64
 	Plan            plan.Settings // Budget 0: no plan
 	Read            survey.Options
-	Sources         []string // files read, lowest precedence first
+	Sources         []string     // files read, lowest precedence first
+	Listing         []settingRow // the settings the command uses, in the order of settingKeys
 }
 
-// Setting keys (file keys; environment LOSSLINE_INTERVAL_CAP_YEARS etc.).
-const (
-	keyIntervalCap = "interval-cap-years"
-	keyLongSide    = "photo-long-side"
-	keyQuality     = "photo-quality"
-	keyTemplates   = "templates"
-	keyConfig      = "config"
-	keyRateModel   = "rate-model"
-	keyRule        = "interval-rule"
-	keyTolerance   = "gauge-tolerance-mm"
-	keyThickUnits  = "thickness-units"
-	keyRateUnits   = "rate-units"
-	keyAccel       = "acceleration-percent"
-	keyCurrency    = "currency"
-	keyUnitCosts   = "unit-costs"
-	keyBudget      = "budget"
-	keyPlanYears   = "plan-years"
-	keyPerYear     = "budget-per-year"
-	keyMaxMP       = "max-megapixels"
-	keyAutoPlace   = "auto-place"
-	keyRadius      = "placement-radius-m"
-	keyArea        = "area-radius-m"
-)
+// settingRow is one setting a command used: its value and its default as
+// text, and where the value came from: "built in", file:line, an
+// environment variable or a flag.
+type settingRow struct {
+	Name, Value, Default, Source string
+}
 
-// settingKeys are every key a settings file may hold.
-var settingKeys = []string{keyIntervalCap, keyLongSide, keyQuality, keyTemplates, keyRateModel, keyRule, keyTolerance, keyThickUnits, keyRateUnits, keyAccel, keyCurrency, keyBudget, keyPlanYears, keyPerYear, keyMaxMP, keyAutoPlace, keyRadius, keyArea}
+// settingProblem is a setting refused: where it was given (a file and line,
+// an environment variable or a flag) and why.
+type settingProblem struct {
+	Where string
+	Line  int // 0: none
+	Msg   string
+}
 
-// addSettingFlags declares the flags that override settings files.
+func (p settingProblem) String() string {
+	if p.Line > 0 {
+		return fmt.Sprintf("%s:%d: %s", p.Where, p.Line, p.Msg)
+	}
+	return p.Where + ": " + p.Msg
+}
+
+// settingProblems are all settings refused, in the order they were read.
+type settingProblems []settingProblem
+
+func (ps settingProblems) Error() string {
+	lines := make([]string, len(ps))
+	for i, p := range ps {
+		lines[i] = p.String()
+	}
+	return strings.Join(lines, "\n")
+}
+
+// addSettingFlags declares --config and a flag for each setting the command
+// uses; flags override settings files and the environment.
 func addSettingFlags(c *cobra.Command) {
 	f := c.Flags()
-	f.String(keyConfig, "", "settings `FILE` read after the survey's lossline.yaml")
-	f.Float64(keyIntervalCap, 10, "longest interval to the next inspection, `years`")
-	f.Int(keyLongSide, 1600, "longest side of photos in the report, `pixels`")
-	f.Int(keyQuality, 80, "JPEG `quality` of photos in the report (1-100)")
-	f.String(keyTemplates, "", "`folder` whose report texts replace the built-in ones")
-	f.String(keyRateModel, string(wallloss.ModelMax), "rate `model`: long, short, max or fit")
-	f.String(keyRule, "half life", "interval `rule`: half life, API 570 class N, API 510, API 653 shell, API 653 bottom, fixed N years")
-	f.Float64(keyTolerance, wallloss.DefaultToleranceMM, "gauge tolerance, `mm`: smaller changes are measurement noise")
-	f.String(keyThickUnits, "", "thickness `units` shown in the report: mm or in (default: the survey's)")
-	f.Float64(keyAccel, 25, "flag a CML as accelerating when its latest interval's rate exceeds the long-term rate by more than this `percent`")
-	f.String(keyCurrency, "currency units", "`name` of the currency of repair costs and budgets")
-	f.Float64(keyBudget, 0, "repair budget of the first plan year, in the currency (0: no plan in the report)")
-	f.Int(keyPlanYears, 1, "`years` the repair plan covers")
-	f.Float64(keyPerYear, 0, "repair budget of each later plan year (default: the first year's)")
-	f.Float64(keyMaxMP, survey.DefaultMaxMegapixels, "photos declaring more `megapixels` are skipped before decoding")
-	f.Bool(keyAutoPlace, true, "place photos no CML names by their GPS position")
-	f.Float64(keyRadius, survey.DefaultPlaceOptions.RadiusM, "a photo within this many `metres` of a CML is placed on it")
-	f.Float64(keyArea, survey.DefaultPlaceOptions.AreaRadiusM, "margin in `metres` around a component's or asset's CMLs for placing photos on it")
-	f.String(keyRateUnits, "", "rate `units` shown in the report: mm/y, mpy or in/y (default: mm/y for mm, mpy for in)")
+	f.String("config", "", "settings `FILE` read after the survey's lossline.yaml")
+	for _, k := range settingKeys {
+		if !k.usedBy(c.Name()) || k.Kind == kindPrices {
+			continue
+		}
+		if k.Kind == kindSwitch {
+			f.Var(&switchValue{flagValue{kind: k.Kind, value: k.Default}}, k.Name, k.Help)
+			f.Lookup(k.Name).NoOptDefVal = "true"
+			continue
+		}
+		f.Var(&flagValue{kind: k.Kind, value: k.Default}, k.Name, k.Help)
+	}
 }
 
 // loadSettings merges, lowest first: built-in defaults, SURVEY/lossline.yaml,
-// --config FILE, LOSSLINE_* environment variables, flags.
+// --config FILE, LOSSLINE_* environment variables, flags. Every value given
+// anywhere is read as its setting's kind and checked against its range, also
+// for settings this command does not use: all refusals are reported at once.
 func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
-	v := viper.New()
-	v.SetDefault(keyIntervalCap, wallloss.DefaultPolicy.IntervalCapYears)
-	v.SetDefault(keyLongSide, 1600)
-	v.SetDefault(keyQuality, 80)
-	v.SetDefault(keyTemplates, "")
-	v.SetDefault(keyRateModel, string(wallloss.ModelMax))
-	v.SetDefault(keyRule, "half life")
-	v.SetDefault(keyTolerance, wallloss.DefaultToleranceMM)
-	v.SetDefault(keyThickUnits, "")
-	v.SetDefault(keyRateUnits, "")
-	v.SetDefault(keyAccel, 25.0)
-	v.SetDefault(keyMaxMP, float64(survey.DefaultMaxMegapixels))
-	v.SetDefault(keyAutoPlace, true)
-	v.SetDefault(keyRadius, survey.DefaultPlaceOptions.RadiusM)
-	v.SetDefault(keyArea, survey.DefaultPlaceOptions.AreaRadiusM)
-	v.SetDefault(keyCurrency, "currency units")
-	v.SetDefault(keyBudget, 0.0)
-	v.SetDefault(keyPlanYears, 1)
-	v.SetDefault(keyPerYear, 0.0)
 	var s settings
-	templatesBase := ""
-	for _, file := range []string{filepath.Join(surveyDir, SettingsFile), flagString(c, keyConfig)} {
+	v := viper.New()
+	for _, k := range settingKeys {
+		if k.Default != nil {
+			v.SetDefault(k.Name, k.Default)
+		}
+	}
+	source := map[string]string{} // key (unit-costs items: unit-costs.ITEM) → where its value is from
+	var problems settingProblems
+	config := flagString(c, "config")
+	for _, file := range []string{filepath.Join(surveyDir, SettingsFile), config} {
 		if file == "" {
 			continue
 		}
-		if _, err := os.Stat(file); errors.Is(err, os.ErrNotExist) {
-			if file == flagString(c, keyConfig) {
-				return s, badInput{fmt.Errorf("%s: settings file not found", file)}
+		if _, err := os.Stat(file); errors.Is(err, fs.ErrNotExist) {
+			if file == config {
+				problems = append(problems, settingProblem{Where: file, Msg: "settings file not found"})
 			}
 			continue
 		}
-		v.SetConfigFile(file)
-		v.SetConfigType("yaml")
-		if err := v.MergeInConfig(); err != nil {
-			return s, badInput{fmt.Errorf("%s: %v", file, err)}
-		}
-		if err := unknownKeys(v, file); err != nil {
+		read, ps := readSettingsFile(file)
+		problems = append(problems, ps...)
+		if err := v.MergeConfigMap(read.Values); err != nil {
 			return s, err
 		}
-		if v.InConfig(keyTemplates) {
-			templatesBase = filepath.Dir(file)
-		}
+		maps.Copy(source, read.Places)
 		s.Sources = append(s.Sources, file)
 	}
-	v.SetEnvPrefix("LOSSLINE")
-	v.SetEnvKeyReplacer(strings.NewReplacer("-", "_"))
-	v.AutomaticEnv()
+	// The environment merges as the last settings layer: over every file,
+	// under the flags.
+	env, places, ps := readEnvironment()
+	problems = append(problems, ps...)
+	if err := v.MergeConfigMap(env); err != nil {
+		return s, err
+	}
+	maps.Copy(source, places)
 	for _, k := range settingKeys {
-		if err := v.BindPFlag(k, c.Flags().Lookup(k)); err != nil {
+		f := c.Flags().Lookup(k.Name)
+		if f == nil || !k.usedBy(c.Name()) {
+			continue
+		}
+		if err := v.BindPFlag(k.Name, f); err != nil {
 			return s, err
 		}
-	}
-	rule, err := wallloss.ParseIntervalRule(v.GetString(keyRule))
-	if err != nil {
-		return s, badInput{fmt.Errorf("%s: %v", keyRule, err)}
-	}
-	model, err := wallloss.ParseRateModel(v.GetString(keyRateModel))
-	if err != nil {
-		return s, badInput{fmt.Errorf("%s: %v", keyRateModel, err)}
-	}
-	s.Policy = wallloss.Policy{IntervalCapYears: v.GetFloat64(keyIntervalCap), RateModel: model, Rule: rule, ToleranceMM: v.GetFloat64(keyTolerance)}
-	s.AccelerationPct = v.GetFloat64(keyAccel)
-	s.Read = survey.Options{MaxMegapixels: v.GetFloat64(keyMaxMP), Place: survey.PlaceOptions{
-		Auto: v.GetBool(keyAutoPlace), RadiusM: v.GetFloat64(keyRadius), AreaRadiusM: v.GetFloat64(keyArea)}}
-	if s.Read.MaxMegapixels <= 0 || s.Read.Place.RadiusM < 0 || s.Read.Place.AreaRadiusM < 0 {
-		return s, badInput{fmt.Errorf("%s must be positive, %s and %s not negative", keyMaxMP, keyRadius, keyArea)}
-	}
-	s.Plan = plan.Settings{Budget: v.GetFloat64(keyBudget), PerYear: v.GetFloat64(keyPerYear), Years: v.GetInt(keyPlanYears),
-		Costs: plan.Costs{Currency: v.GetString(keyCurrency), Unit: map[string]float64{}}}
-	for k := range v.GetStringMap(keyUnitCosts) {
-		price := v.GetFloat64(keyUnitCosts + "." + k)
-		if price < 0 {
-			return s, badInput{fmt.Errorf("%s: %s must not be negative", keyUnitCosts, k)}
+		if f.Changed {
+			if _, why := k.read(f.Value.String(), ""); why != "" {
+				problems = append(problems, settingProblem{Where: "--" + k.Name, Msg: k.Name + " " + why})
+			}
+			source[k.Name] = "--" + k.Name
 		}
-		s.Plan.Costs.Unit[strings.ToLower(k)] = price
 	}
-	if s.Plan.Budget < 0 || s.Plan.PerYear < 0 || s.Plan.Years < 1 || s.Plan.Years > 50 {
-		return s, badInput{fmt.Errorf("%s and %s must not be negative, %s between 1 and 50", keyBudget, keyPerYear, keyPlanYears)}
+	if len(problems) > 0 {
+		return s, badInput{problems}
 	}
-	if t := v.GetString(keyThickUnits); t != "" {
-		u, ok := survey.ParseUnit(t)
-		if !ok {
-			return s, badInput{fmt.Errorf("%s %q is not mm or in", keyThickUnits, t)}
+	for _, k := range settingKeys {
+		val := valueOf(v, k)
+		k.Set(&s, val)
+		if k.usedBy(c.Name()) {
+			s.Listing = append(s.Listing, k.rows(val, source)...)
 		}
-		s.Display.Thickness = u
 	}
-	if r := v.GetString(keyRateUnits); r != "" {
-		if !slices.Contains(report.RateUnits, r) {
-			return s, badInput{fmt.Errorf("%s %q is not one of %s", keyRateUnits, r, strings.Join(report.RateUnits, ", "))}
-		}
-		s.Display.Rate = r
-	}
-	s.Photos = report.PhotoSettings{LongSide: v.GetInt(keyLongSide), Quality: v.GetInt(keyQuality)}
 	if off, _ := c.Flags().GetBool("no-photo-cache"); !off {
 		if dir, err := os.UserCacheDir(); err == nil { // XDG_CACHE_HOME moves it
 			s.Photos.CacheDir = filepath.Join(dir, "lossline", "photos")
 		}
 	}
-	if t := v.GetString(keyTemplates); t != "" {
-		if !filepath.IsAbs(t) && templatesBase != "" && !c.Flags().Changed(keyTemplates) && os.Getenv("LOSSLINE_TEMPLATES") == "" {
-			t = filepath.Join(templatesBase, t)
-		}
-		if st, err := os.Stat(t); err != nil || !st.IsDir() {
-			return s, badInput{fmt.Errorf("templates folder %s not found", t)}
-		}
-		s.Templates = templates.Set{Override: t}
-	}
-	switch {
-	case s.Policy.IntervalCapYears <= 0 || s.Policy.IntervalCapYears > 50:
-		return s, badInput{fmt.Errorf("%s must be between 0 and 50 years, not %v", keyIntervalCap, s.Policy.IntervalCapYears)}
-	case s.Photos.LongSide < 200 || s.Photos.LongSide > 8000:
-		return s, badInput{fmt.Errorf("%s must be between 200 and 8000 pixels, not %d", keyLongSide, s.Photos.LongSide)}
-	case s.AccelerationPct < 0 || s.AccelerationPct > 1000:
-		return s, badInput{fmt.Errorf("%s must be between 0 and 1000, not %v", keyAccel, s.AccelerationPct)}
-	case s.Policy.ToleranceMM < 0 || s.Policy.ToleranceMM > 2:
-		return s, badInput{fmt.Errorf("%s must be between 0 and 2 mm, not %v", keyTolerance, s.Policy.ToleranceMM)}
-	case s.Photos.Quality < 1 || s.Photos.Quality > 100:
-		return s, badInput{fmt.Errorf("%s must be between 1 and 100, not %d", keyQuality, s.Photos.Quality)}
-	}
 	return s, nil
 }
 
-// unknownKeys rejects settings files with keys lossline does not know, so a
-// misspelt key is not silently ignored.
-func unknownKeys(v *viper.Viper, file string) error {
-	for _, k := range v.AllKeys() {
-		if !slices.Contains(settingKeys, k) && !strings.HasPrefix(k, keyUnitCosts+".") {
-			return badInput{fmt.Errorf("%s: unknown setting %q (known: %s)", file, k, strings.Join(settingKeys, ", "))}
+// readEnvironment reads the LOSSLINE_* variable of every setting; an empty
+// variable counts as unset.
+func readEnvironment() (values map[string]any, places map[string]string, problems settingProblems) {
+	values, places = map[string]any{}, map[string]string{}
+	for _, k := range settingKeys {
+		name := k.envName()
+		text := os.Getenv(name)
+		if text == "" {
+			continue
+		}
+		if k.Kind == kindPrices {
+			problems = append(problems, settingProblem{Where: name, Msg: k.Name + " can be given in a settings file only"})
+			continue
+		}
+		v, why := k.read(text, "")
+		if why != "" {
+			problems = append(problems, settingProblem{Where: name, Msg: k.Name + " " + why})
+			continue
+		}
+		values[k.Name], places[k.Name] = v, name
+	}
+	return values, places, problems
+}
+
+// read reads text given for the setting: its value, or why it is refused in
+// words that follow the setting's name. base is the folder of the settings
+// file that holds the text, "" elsewhere.
+func (k settingKey) read(text, base string) (any, string) {
+	v, err := parseValue(k.Kind, text)
+	if err != nil {
+		return nil, fmt.Sprintf("%q is %v", text, err)
+	}
+	if p, ok := v.(string); ok && k.Kind == kindFolder && base != "" && p != "" && !filepath.IsAbs(p) {
+		v = filepath.Join(base, p)
+	}
+	if k.Check != nil {
+		if err := k.Check(v); err != nil {
+			return nil, err.Error()
 		}
 	}
-	return nil
+	return v, ""
+}
+
+// valueOf is the setting's merged value. Every layer holds values already
+// read as the setting's kind (flags as their canonical text), so viper's
+// conversions lose nothing.
+func valueOf(v *viper.Viper, k settingKey) any {
+	switch k.Kind {
+	case kindNumber, kindMoney:
+		return v.GetFloat64(k.Name)
+	case kindWhole:
+		return v.GetInt(k.Name)
+	case kindSwitch:
+		return v.GetBool(k.Name)
+	case kindPrices:
+		prices := map[string]float64{}
+		for item, p := range v.GetStringMap(k.Name) {
+			prices[item] = p.(float64)
+		}
+		return prices
+	}
+	return v.GetString(k.Name)
+}
+
+// rows lists the setting's value for a listing of the settings used.
+func (k settingKey) rows(v any, source map[string]string) []settingRow {
+	from := func(key string) string {
+		if s, ok := source[key]; ok {
+			return s
+		}
+		return "built in"
+	}
+	prices, ok := v.(map[string]float64)
+	if !ok {
+		return []settingRow{{Name: k.Name, Value: formatValue(v), Default: formatValue(k.Default), Source: from(k.Name)}}
+	}
+	var rows []settingRow
+	for _, item := range slices.Sorted(maps.Keys(prices)) {
+		key := k.Name + "." + item
+		rows = append(rows, settingRow{Name: key, Value: strconv.FormatFloat(prices[item], 'f', -1, 64), Source: from(key)})
+	}
+	return rows
 }
 
 func flagString(c *cobra.Command, name string) string {
