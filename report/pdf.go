@@ -25,6 +25,15 @@ type Options struct {
 	Templates templates.Set
 	Created   time.Time // printed as the report date and written as the PDF's creation date
 	Version   string    // lossline version, printed on the cover
+	// Settings lists every setting the report used, printed in the methods appendix.
+	Settings []SettingRow
+}
+
+// SettingRow is one setting as used: its value and its default as text, and
+// where the value came from ("built in", file:line, an environment variable
+// or a flag).
+type SettingRow struct {
+	Name, Value, Default, Source string
 }
 
 // Page geometry, mm (A4).

@@ -41,6 +41,14 @@ func (d *doc) methods() error {
 		{"Report texts", tmpl},
 		{"Program", "lossline " + d.opts.Version},
 	}, 40)
+	if len(d.opts.Settings) > 0 {
+		d.heading(2, "Every setting, its value and where it came from")
+		rows := make([][]string, len(d.opts.Settings))
+		for i, r := range d.opts.Settings {
+			rows[i] = []string{r.Name, r.Value, r.Default, r.Source}
+		}
+		d.table([]column{{"Setting", 42, "L"}, {"Value", 48, "L"}, {"Default", 40, "L"}, {"From", d.width() - 130, "L"}}, rows, nil, smallSize)
+	}
 	return nil
 }
 

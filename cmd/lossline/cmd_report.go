@@ -55,6 +55,7 @@ func runReport(c *cobra.Command, args []string) error {
 	photos.Progress = progressBar(stderr, "photos")
 	files, warnings, err := report.Render(f, report.Options{
 		Display: set.Display, Place: set.Read.Place, Photos: photos, Templates: set.Templates, Created: time.Now(), Version: version,
+		Settings: set.Listing,
 	})
 	if err != nil {
 		return err

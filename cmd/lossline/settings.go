@@ -42,9 +42,7 @@ type settings struct {
 // settingRow is one setting a command used: its value and its default as
 // text, and where the value came from: "built in", file:line, an
 // environment variable or a flag.
-type settingRow struct {
-	Name, Value, Default, Source string
-}
+type settingRow = report.SettingRow
 
 // settingProblem is a setting refused: where it was given (a file and line,
 // an environment variable or a flag) and why.
