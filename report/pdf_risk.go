@@ -71,7 +71,7 @@ func (d *doc) riskSection() {
 		name      string
 		top       plan.Risk
 		cml       string
-		total, at int
+		total int
 	}
 	var comps []compRisk
 	for _, a := range d.s.Assets {

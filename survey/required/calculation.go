@@ -134,9 +134,3 @@ func (r *reader) note(name, text string, v float64, kind Kind) {
 	r.inputs = append(r.inputs, Input{Name: name, Written: text, Used: fmt.Sprintf(used, v)})
 }
 
-// fail records an error unless one is already recorded.
-func (r *reader) fail(format string, args ...any) {
-	if r.err == nil {
-		r.err = fmt.Errorf(format, args...)
-	}
-}
