@@ -12,6 +12,7 @@ import (
 	"golang.org/x/image/font/gofont/gomono"
 	"golang.org/x/image/font/gofont/goregular"
 
+	"github.com/lossline/lossline/photo"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 	"github.com/lossline/lossline/templates"
@@ -24,12 +25,15 @@ type Options struct {
 	// AccelerationPct is the margin over the long-term rate at which a CML's
 	// latest interval counts as accelerating.
 	AccelerationPct float64
-	Photos          PhotoSettings
-	Plan            PlanSettings // a repair plan is drawn when Plan.Budget > 0
-	Place           survey.PlaceOptions
-	Templates       templates.Set
-	Created         time.Time // printed as the report date and written as the PDF's creation date
-	Version         string    // lossline version, printed on the cover
+	// Photos are the settings the photos are prepared with, printed in the
+	// methods appendix; PreparePhotos prepares them.
+	Photos        photo.Settings
+	PreparePhotos PhotoStage
+	Plan          PlanSettings // a repair plan is drawn when Plan.Budget > 0
+	Place         survey.PlaceOptions
+	Templates     templates.Set
+	Created       time.Time // printed as the report date and written as the PDF's creation date
+	Version       string    // lossline version, printed on the cover
 }
 
 // Page geometry, mm (A4).
@@ -61,8 +65,7 @@ type doc struct {
 type photoEntry struct {
 	key   string // name the image is registered under in the PDF
 	photo *survey.Photo
-	prep  preparedPhoto
-	err   error
+	prep  photo.Prepared
 }
 
 // PDF renders report.pdf. Photos that cannot be read are left out and come
@@ -95,7 +98,9 @@ func PDF(s *survey.Survey, items []*survey.Assessed, opts Options) ([]byte, surv
 	pdf.AliasNbPages("{nb}")
 	pdf.SetFooterFunc(d.footer)
 
-	d.prepareAllPhotos()
+	if err := d.prepareAllPhotos(); err != nil {
+		return nil, nil, err
+	}
 	if err := d.sections(); err != nil {
 		return nil, nil, err
 	}

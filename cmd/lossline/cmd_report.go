@@ -7,6 +7,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/lossline/lossline/photo"
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
@@ -53,6 +54,7 @@ func runReport(c *cobra.Command, args []string) error {
 	photos.Progress = progressBar(stderr, "photos")
 	files, warnings, err := report.Render(s, items, report.Options{
 		Policy: set.Policy, Display: set.Display, AccelerationPct: set.AccelerationPct, Plan: set.Plan, Place: set.Read.Place, Photos: photos, Templates: set.Templates, Created: time.Now(), Version: version,
+		PreparePhotos: func(srcs []photo.Source, use func(int, photo.Prepared, error)) { photo.Stage(srcs, photos, use) },
 	})
 	if err != nil {
 		return err

@@ -11,6 +11,7 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/spf13/viper"
 
+	"github.com/lossline/lossline/photo"
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/plan"
@@ -24,7 +25,7 @@ const SettingsFile = "lossline.yaml"
 // settings are the typed settings every command uses.
 type settings struct {
 	Policy    wallloss.Policy
-	Photos    report.PhotoSettings
+	Photos    photo.Settings
 	Templates templates.Set
 	Display   report.Display
 	// AccelerationPct: a CML accelerates when its latest interval's rate is
@@ -181,7 +182,7 @@ func loadSettings(c *cobra.Command, surveyDir string) (settings, error) {
 		}
 		s.Display.Rate = r
 	}
-	s.Photos = report.PhotoSettings{LongSide: v.GetInt(keyLongSide), Quality: v.GetInt(keyQuality)}
+	s.Photos = photo.Settings{LongSide: v.GetInt(keyLongSide), Quality: v.GetInt(keyQuality)}
 	if off, _ := c.Flags().GetBool("no-photo-cache"); !off {
 		if dir, err := os.UserCacheDir(); err == nil { // XDG_CACHE_HOME moves it
 			s.Photos.CacheDir = filepath.Join(dir, "lossline", "photos")
