@@ -132,3 +132,27 @@ func collect(photos []Source, ps Settings) []result {
 	})
 	return out
 }
+
+// Stage hands over every photo in input order, a file that cannot be
+// prepared with its error and the others unharmed.
+func TestStageOrderAndErrors(t *testing.T) {
+	dir := t.TempDir()
+	srcs := []Source{
+		testPhoto(t, dir, "a.jpg", 300, 200, 1),
+		{Path: filepath.Join(dir, "missing.jpg"), Orientation: 1},
+		testPhoto(t, dir, "c.jpg", 200, 300, 1),
+	}
+	var got []int
+	Stage(srcs, Settings{LongSide: 100, Quality: 80}, func(i int, p Prepared, err error) {
+		got = append(got, i)
+		if (err != nil) != (i == 1) {
+			t.Errorf("photo %d: error %v", i, err)
+		}
+		if i != 1 && (max(p.Width, p.Height) != 100 || len(p.JPEG) == 0) {
+			t.Errorf("photo %d: %d×%d, %d bytes", i, p.Width, p.Height, len(p.JPEG))
+		}
+	})
+	if len(got) != 3 || got[0] != 0 || got[1] != 1 || got[2] != 2 {
+		t.Errorf("order %v, want [0 1 2]", got)
+	}
+}
