@@ -56,7 +56,9 @@ func ScanBytes(data []byte, maxMP float64) (h Header, err error) {
 		return Header{}, fmt.Errorf("%d×%d pixels (%.0f MP) is over the %g MP limit", cfg.Width, cfg.Height, mp, maxMP)
 	}
 	h = Header{Hash: hex.EncodeToString(sum[:]), Width: cfg.Width, Height: cfg.Height, Orientation: 1}
-	h.EXIFErr = readEXIF(&h, bytes.NewReader(data))
+	if h.EXIFErr = checkEXIFLayout(data); h.EXIFErr == nil {
+		h.EXIFErr = readEXIF(&h, bytes.NewReader(data))
+	}
 	return h, nil
 }
 
