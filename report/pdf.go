@@ -13,18 +13,22 @@ import (
 	"golang.org/x/image/font/gofont/goregular"
 
 	"github.com/lossline/lossline/findings"
+	"github.com/lossline/lossline/photo"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/templates"
 )
 
 // Options are the settings the report follows.
 type Options struct {
-	Display   Display
-	Photos    PhotoSettings
-	Place     survey.PlaceOptions // how photos were placed, stated in the methods appendix
-	Templates templates.Set
-	Created   time.Time // printed as the report date and written as the PDF's creation date
-	Version   string    // lossline version, printed on the cover
+	Display Display
+	// Photos are the settings the photos are prepared with, printed in the
+	// methods appendix; PreparePhotos prepares them.
+	Photos        photo.Settings
+	PreparePhotos PhotoStage
+	Place         survey.PlaceOptions // how photos were placed, stated in the methods appendix
+	Templates     templates.Set
+	Created       time.Time // printed as the report date and written as the PDF's creation date
+	Version       string    // lossline version, printed on the cover
 	// Settings lists every setting the report used, printed in the methods appendix.
 	Settings []SettingRow
 }
@@ -64,8 +68,7 @@ type doc struct {
 type photoEntry struct {
 	key   string // name the image is registered under in the PDF
 	photo *survey.Photo
-	prep  preparedPhoto
-	err   error
+	prep  photo.Prepared
 }
 
 // PDF renders report.pdf. Photos that cannot be read are left out and come
@@ -93,7 +96,9 @@ func PDF(f *findings.Findings, opts Options) ([]byte, survey.ProblemList, error)
 	pdf.AliasNbPages("{nb}")
 	pdf.SetFooterFunc(d.footer)
 
-	d.prepareAllPhotos()
+	if err := d.prepareAllPhotos(); err != nil {
+		return nil, nil, err
+	}
 	if err := d.sections(); err != nil {
 		return nil, nil, err
 	}

@@ -6,6 +6,7 @@ import (
 
 	"github.com/go-pdf/fpdf"
 
+	"github.com/lossline/lossline/photo"
 	"github.com/lossline/lossline/survey"
 )
 
@@ -16,10 +17,14 @@ type photoShown struct {
 	label string // "Before" or "Now" in before/after pairs
 }
 
-// prepareAllPhotos reduces every photo the report shows (on all cores,
-// through the cache) and registers each once. A photo that cannot be decoded
+// PhotoStage prepares photo files for the PDF and hands each result to use in
+// the order of srcs, e.g. photo.Stage with the report's photo settings.
+type PhotoStage func(srcs []photo.Source, use func(i int, p photo.Prepared, err error))
+
+// prepareAllPhotos has every photo the report shows prepared by
+// opts.PreparePhotos and registers each once. A photo that cannot be prepared
 // becomes a warning naming the file.
-func (d *doc) prepareAllPhotos() {
+func (d *doc) prepareAllPhotos() error {
 	var photos []*survey.Photo
 	var keys []string
 	for _, ph := range d.s.Photos {
@@ -32,19 +37,30 @@ func (d *doc) prepareAllPhotos() {
 			}
 		}
 	}
-	preparePhotos(photos, d.opts.Photos, func(i int, r photoResult) {
+	if len(photos) == 0 {
+		return nil
+	}
+	if d.opts.PreparePhotos == nil {
+		return fmt.Errorf("report: %d photos to show and no PreparePhotos in the options", len(photos))
+	}
+	srcs := make([]photo.Source, len(photos))
+	for i, ph := range photos {
+		srcs[i] = photo.Source{Path: ph.Path, Hash: ph.Hash, Orientation: ph.Orientation}
+	}
+	d.opts.PreparePhotos(srcs, func(i int, p photo.Prepared, err error) {
 		ph, key := photos[i], keys[i]
 		if _, done := d.photos[key]; done {
 			return
 		}
-		if r.err != nil {
-			d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", r.err)
+		if err != nil {
+			d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", err)
 			return
 		}
-		d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(r.prep.JPEG))
+		d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(p.JPEG))
 		// fpdf keeps its own copy of the bytes; the entry keeps only the size.
-		d.photos[key] = &photoEntry{key: key, photo: ph, prep: preparedPhoto{Width: r.prep.Width, Height: r.prep.Height}}
+		d.photos[key] = &photoEntry{key: key, photo: ph, prep: photo.Prepared{Width: p.Width, Height: p.Height}}
 	})
+	return nil
 }
 
 // Photo grid geometry, mm.
@@ -85,7 +101,7 @@ func (d *doc) photoGrid(shown []photoShown) {
 }
 
 // fit scales a photo into a box of w × h mm, keeping its shape.
-func fit(pp preparedPhoto, w, h float64) (float64, float64) {
+func fit(pp photo.Prepared, w, h float64) (float64, float64) {
 	ratio := float64(pp.Height) / float64(pp.Width)
 	if w*ratio <= h {
 		return w, w * ratio

@@ -68,9 +68,9 @@ func (d *doc) riskSection() {
 	d.font("", bodySize)
 
 	type compRisk struct {
-		name      string
-		top       plan.Risk
-		cml       string
+		name  string
+		top   plan.Risk
+		cml   string
 		total int
 	}
 	var comps []compRisk

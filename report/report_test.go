@@ -4,9 +4,6 @@ import (
 	"bytes"
 	"encoding/csv"
 	"flag"
-	"image"
-	"image/color"
-	"image/jpeg"
 	"os"
 	"path/filepath"
 	"strings"
@@ -17,6 +14,7 @@ import (
 	"github.com/paulmach/orb/geojson"
 
 	"github.com/lossline/lossline/findings"
+	"github.com/lossline/lossline/photo"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 )
@@ -33,11 +31,13 @@ func demo(t *testing.T) *findings.Findings {
 }
 
 func testOptions() Options {
+	ps := photo.Settings{LongSide: 1600, Quality: 80}
 	return Options{
-		Place:   survey.DefaultPlaceOptions,
-		Photos:  PhotoSettings{LongSide: 1600, Quality: 80},
-		Created: time.Date(2026, 11, 20, 9, 0, 0, 0, time.UTC),
-		Version: "test",
+		Place:         survey.DefaultPlaceOptions,
+		Photos:        ps,
+		PreparePhotos: func(srcs []photo.Source, use func(int, photo.Prepared, error)) { photo.Stage(srcs, ps, use) },
+		Created:       time.Date(2026, 11, 20, 9, 0, 0, 0, time.UTC),
+		Version:       "test",
 	}
 }
 
@@ -107,49 +107,6 @@ func TestCSVInInches(t *testing.T) {
 }
 
 func ptr(v float64) *float64 { return &v }
-
-// EXIF orientation (CIPA DC-008, Exif 2.3, tag 0x0112): the value says where
-// the stored picture's first row and column belong. A 3×2 picture with a marked
-// top-left pixel must end with that pixel where the table puts it.
-func TestOrient(t *testing.T) {
-	src := image.NewRGBA(image.Rect(0, 0, 3, 2))
-	mark := color.RGBA{255, 0, 0, 255}
-	src.SetRGBA(0, 0, mark)
-	for _, c := range []struct {
-		o          int
-		w, h, x, y int // output size and where the stored top-left pixel lands
-	}{
-		{1, 3, 2, 0, 0}, {2, 3, 2, 2, 0}, {3, 3, 2, 2, 1}, {4, 3, 2, 0, 1},
-		{5, 2, 3, 0, 0}, {6, 2, 3, 1, 0}, {7, 2, 3, 1, 2}, {8, 2, 3, 0, 2},
-	} {
-		out := orient(src, c.o)
-		if b := out.Bounds(); b.Dx() != c.w || b.Dy() != c.h {
-			t.Errorf("orientation %d: size %v, want %d×%d", c.o, b, c.w, c.h)
-			continue
-		}
-		if out.RGBAAt(c.x, c.y) != mark {
-			t.Errorf("orientation %d: marked pixel not at (%d,%d)", c.o, c.x, c.y)
-		}
-	}
-}
-
-func TestPreparePhotoReduces(t *testing.T) {
-	dir := t.TempDir()
-	path := filepath.Join(dir, "big.jpg")
-	var b bytes.Buffer
-	jpeg.Encode(&b, image.NewGray(image.Rect(0, 0, 2400, 1200)), nil)
-	os.WriteFile(path, b.Bytes(), 0o644)
-	p, err := preparePhoto(path, 6, PhotoSettings{LongSide: 1600, Quality: 80})
-	if err != nil {
-		t.Fatal(err)
-	}
-	if p.Width != 800 || p.Height != 1600 {
-		t.Errorf("prepared %d×%d, want 800×1600 (reduced, then turned upright)", p.Width, p.Height)
-	}
-	if _, err := preparePhoto(filepath.Join(dir, "none.jpg"), 1, PhotoSettings{LongSide: 1600, Quality: 80}); err == nil {
-		t.Error("missing file: no error")
-	}
-}
 
 // A failed write leaves the earlier report as it was.
 func TestWriteFilesAtomic(t *testing.T) {

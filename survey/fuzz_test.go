@@ -32,24 +32,3 @@ func FuzzParseChecklist(f *testing.F) {
 		_ = Assess(s, wallloss.DefaultPolicy)
 	})
 }
-
-// FuzzScanPhoto: any bytes in the photos folder give a photo or a reason to
-// skip the file, never a panic (EXIF parsing included).
-func FuzzScanPhoto(f *testing.F) {
-	seeds, _ := filepath.Glob(filepath.Join("..", "testdata", "demo", "photos", "*", "*.jpg"))
-	for _, p := range seeds {
-		if b, err := os.ReadFile(p); err == nil {
-			f.Add(b[:min(len(b), 4096)]) // the headers, where EXIF lives
-		}
-	}
-	f.Add([]byte{0xFF, 0xD8, 0xFF, 0xE1, 0x00, 0x08, 'E', 'x', 'i', 'f', 0, 0})
-	f.Fuzz(func(t *testing.T, data []byte) {
-		sc := scanData("x.jpg", "photos/x.jpg", data, DefaultMaxMegapixels)
-		if (sc.photo == nil) == (sc.skip == "") {
-			t.Fatalf("scan gave photo %v and reason %q", sc.photo, sc.skip)
-		}
-		if sc.photo != nil && (sc.photo.Orientation < 1 || sc.photo.Orientation > 8) {
-			t.Fatalf("orientation %d", sc.photo.Orientation)
-		}
-	})
-}

@@ -1,22 +1,14 @@
 package survey
 
 import (
-	"bytes"
-	"crypto/sha256"
-	"encoding/hex"
-	"fmt"
-	"image/jpeg"
-	"io"
 	"io/fs"
 	"os"
 	"path/filepath"
 	"runtime"
 	"sort"
-	"strings"
 	"sync"
-	"time"
 
-	"github.com/rwcarlsen/goexif/exif"
+	"github.com/lossline/lossline/photo"
 )
 
 // PhotoDir is the folder of a survey that holds its photos.
@@ -53,7 +45,7 @@ func ScanPhotos(dir string, maxMP float64) ([]*Photo, []SkippedFile, ProblemList
 		}
 		rel, _ := filepath.Rel(root, path)
 		name := filepath.ToSlash(rel)
-		if why := notPhoto(name); why != "" {
+		if why := photo.NotPhoto(name); why != "" {
 			skip(name, path, why)
 			return nil
 		}
@@ -108,81 +100,16 @@ type photoScan struct {
 }
 
 func scanPhoto(name, path string, maxMP float64) photoScan {
-	data, err := os.ReadFile(path)
+	h, err := photo.Scan(path, maxMP)
 	if err != nil {
-		return photoScan{skip: "cannot be read: " + err.Error()}
+		return photoScan{skip: err.Error()}
 	}
-	return scanData(name, path, data, maxMP)
-}
-
-// scanData reads a photo's header from its bytes; it never panics.
-func scanData(name, path string, data []byte, maxMP float64) (sc photoScan) {
-	defer func() {
-		if r := recover(); r != nil {
-			sc = photoScan{skip: fmt.Sprintf("damaged file: %v", r)}
-		}
-	}()
-	sum := sha256.Sum256(data)
-	cfg, err := jpeg.DecodeConfig(bytes.NewReader(data))
-	if err != nil {
-		return photoScan{skip: "not a readable JPEG: " + err.Error()}
+	p := &Photo{Name: name, Path: path, Orientation: h.Orientation, Hash: h.Hash, Width: h.Width, Height: h.Height, Taken: h.Taken}
+	if h.HasGPS {
+		p.GPS = &LatLon{Lat: h.Lat, Lon: h.Lon}
 	}
-	if mp := float64(cfg.Width) * float64(cfg.Height) / 1e6; mp > maxMP {
-		return photoScan{skip: fmt.Sprintf("%d×%d pixels (%.0f MP) is over the %g MP limit", cfg.Width, cfg.Height, mp, maxMP)}
-	}
-	p := &Photo{Name: name, Path: path, Orientation: 1, Hash: hex.EncodeToString(sum[:]), Width: cfg.Width, Height: cfg.Height}
-	if err := readEXIF(p, bytes.NewReader(data)); err != nil {
-		p.Problem = err.Error()
+	if h.EXIFErr != nil {
+		p.Problem = h.EXIFErr.Error()
 	}
 	return photoScan{photo: p}
-}
-
-// notPhoto says why a file is not taken as a photo, or "" when it may be one.
-func notPhoto(name string) string {
-	base := filepath.Base(name)
-	ext := strings.ToLower(filepath.Ext(name))
-	switch {
-	case strings.HasPrefix(base, "._") || base == ".DS_Store" || base == "Thumbs.db" || base == "desktop.ini":
-		return "system file"
-	case ext == ".jpg" || ext == ".jpeg" || ext == ".jpe":
-		return ""
-	case ext == ".heic" || ext == ".heif":
-		return "HEIC photo: export it as JPEG"
-	case ext == ".png" || ext == ".gif" || ext == ".tif" || ext == ".tiff" || ext == ".webp" || ext == ".bmp" || ext == ".dng":
-		return "not a JPEG (" + strings.TrimPrefix(ext, ".") + ")"
-	case ext == ".mp4" || ext == ".mov" || ext == ".avi" || ext == ".m4v" || ext == ".3gp":
-		return "video"
-	}
-	return "not a JPEG"
-}
-
-// readEXIF fills p from the file's EXIF header. A panic inside the EXIF
-// library on a damaged file is turned into an error for that file alone.
-func readEXIF(p *Photo, r io.Reader) (err error) {
-	defer func() {
-		if rec := recover(); rec != nil {
-			err = fmt.Errorf("damaged EXIF header: %v", rec)
-		}
-	}()
-	x, err := exif.Decode(r)
-	if err != nil && exif.IsCriticalError(err) || x == nil {
-		return fmt.Errorf("no EXIF data")
-	}
-	if tag, err := x.Get(exif.DateTimeOriginal); err == nil {
-		if s, err := tag.StringVal(); err == nil {
-			// EXIF times carry no zone: they are kept as the camera's wall clock.
-			if t, err := time.Parse("2006:01:02 15:04:05", strings.TrimRight(s, "\x00 ")); err == nil {
-				p.Taken = &t
-			}
-		}
-	}
-	if lat, lon, err := x.LatLong(); err == nil && lat >= -90 && lat <= 90 && lon >= -180 && lon <= 180 && !(lat == 0 && lon == 0) {
-		p.GPS = &LatLon{Lat: lat, Lon: lon}
-	}
-	if tag, err := x.Get(exif.Orientation); err == nil {
-		if o, err := tag.Int(0); err == nil && o >= 1 && o <= 8 {
-			p.Orientation = o
-		}
-	}
-	return nil
 }

@@ -8,6 +8,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/lossline/lossline/findings"
+	"github.com/lossline/lossline/photo"
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
@@ -55,7 +56,8 @@ func runReport(c *cobra.Command, args []string) error {
 	photos.Progress = progressBar(stderr, "photos")
 	files, warnings, err := report.Render(f, report.Options{
 		Display: set.Display, Place: set.Read.Place, Photos: photos, Templates: set.Templates, Created: time.Now(), Version: version,
-		Settings: set.Listing,
+		Settings:      set.Listing,
+		PreparePhotos: func(srcs []photo.Source, use func(int, photo.Prepared, error)) { photo.Stage(srcs, photos, use) },
 	})
 	if err != nil {
 		return err

@@ -14,6 +14,7 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/spf13/viper"
 
+	"github.com/lossline/lossline/photo"
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/plan"
@@ -27,7 +28,7 @@ const SettingsFile = "lossline.yaml"
 // settings are the typed settings every command uses.
 type settings struct {
 	Policy    wallloss.Policy
-	Photos    report.PhotoSettings
+	Photos    photo.Settings
 	Templates templates.Set
 	Display   report.Display
 	// AccelerationPct: a CML accelerates when its latest interval's rate is

@@ -133,4 +133,3 @@ func (r *reader) note(name, text string, v float64, kind Kind) {
 	used := map[Kind]string{Length: "%.6g mm", Pressure: "%.6g MPa", Temperature: "%.4g °C", Number: "%.4g"}[kind]
 	r.inputs = append(r.inputs, Input{Name: name, Written: text, Used: fmt.Sprintf(used, v)})
 }
-

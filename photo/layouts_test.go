@@ -1,4 +1,4 @@
-package report
+package photo
 
 import (
 	"bytes"
@@ -8,7 +8,7 @@ import (
 	"testing"
 )
 
-// Fixtures (report/testdata/layouts, 96×64 with a red top-left block) made
+// Fixtures (photo/testdata/layouts, 96×64 with a red top-left block) made
 // with libjpeg-turbo's cjpeg (-sample 2x1, -sample 1x1, -grayscale,
 // -progressive) and libvips (CMYK). Every layout must come out right, whether
 // or not the libjpeg-turbo path is built in; that path takes only baseline 4:2:0.
@@ -33,7 +33,7 @@ func TestJPEGLayouts(t *testing.T) {
 			t.Errorf("%s: fast path taken %v", c.file, ok)
 		}
 		for _, o := range []int{1, 6} {
-			p, err := preparePhoto(path, o, PhotoSettings{LongSide: 48, Quality: 95})
+			p, err := Prepare(path, o, Settings{LongSide: 48, Quality: 95})
 			if err != nil {
 				t.Fatalf("%s: %v", c.file, err)
 			}

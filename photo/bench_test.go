@@ -1,4 +1,4 @@
-package report
+package photo
 
 import (
 	"fmt"
@@ -11,20 +11,19 @@ import (
 	"time"
 
 	"github.com/lossline/lossline/internal/benchphotos"
-	"github.com/lossline/lossline/survey"
 )
 
 // benchPhotos returns n generated 12-megapixel photos, made once into the
 // temp folder and reused by later runs (not committed).
-func benchPhotos(b *testing.B, n int) []*survey.Photo {
+func benchPhotos(b *testing.B, n int) []Source {
 	b.Helper()
 	paths, err := benchphotos.Base(filepath.Join(os.TempDir(), "lossline-bench-12mp"), n)
 	if err != nil {
 		b.Fatal(err)
 	}
-	var photos []*survey.Photo
+	var photos []Source
 	for i, p := range paths {
-		photos = append(photos, &survey.Photo{Name: filepath.Base(p), Path: p, Orientation: 1, Hash: fmt.Sprint(i)})
+		photos = append(photos, Source{Path: p, Orientation: 1, Hash: fmt.Sprint(i)})
 	}
 	return photos
 }
@@ -33,15 +32,15 @@ func benchPhotos(b *testing.B, n int) []*survey.Photo {
 // 12 MP to 1600 px at quality 80, on all cores. Reports ms/photo.
 func BenchmarkPhotoStage12MP(b *testing.B) {
 	photos := benchPhotos(b, 20)
-	ps := PhotoSettings{LongSide: 1600, Quality: 80}
+	ps := Settings{LongSide: 1600, Quality: 80}
 	var size int
 	for b.Loop() {
 		size = 0
-		preparePhotos(photos, ps, func(_ int, r photoResult) {
-			if r.err != nil {
-				b.Fatal(r.err)
+		Stage(photos, ps, func(_ int, p Prepared, err error) {
+			if err != nil {
+				b.Fatal(err)
 			}
-			size += len(r.prep.JPEG)
+			size += len(p.JPEG)
 		})
 	}
 	b.ReportMetric(float64(b.Elapsed().Milliseconds())/float64(b.N)/float64(len(photos)), "ms/photo")
@@ -58,15 +57,15 @@ func BenchmarkPhotoStageVsVips12MP(b *testing.B) {
 		b.Skip("vipsthumbnail not installed (Debian libvips-tools)")
 	}
 	photos := benchPhotos(b, 20)
-	ps := PhotoSettings{LongSide: 1600, Quality: 80}
+	ps := Settings{LongSide: 1600, Quality: 80}
 	out := b.TempDir()
 	procs := runtime.GOMAXPROCS(0)
 	var ours, vips time.Duration
 	for b.Loop() {
 		start := time.Now()
-		preparePhotos(photos, ps, func(_ int, r photoResult) {
-			if r.err != nil {
-				b.Fatal(r.err)
+		Stage(photos, ps, func(_ int, _ Prepared, err error) {
+			if err != nil {
+				b.Fatal(err)
 			}
 		})
 		ours += time.Since(start)

@@ -1,4 +1,4 @@
-package report
+package photo
 
 import (
 	"bytes"
@@ -11,13 +11,11 @@ import (
 	"testing"
 
 	"golang.org/x/image/draw"
-
-	"github.com/lossline/lossline/survey"
 )
 
 // testPhoto writes a w × h JPEG (4:2:0, as cameras write) of smooth colour
-// gradients and returns its survey.Photo.
-func testPhoto(t testing.TB, dir, name string, w, h, orientation int) *survey.Photo {
+// gradients and returns it as a Source whose hash is its name.
+func testPhoto(t testing.TB, dir, name string, w, h, orientation int) Source {
 	img := image.NewRGBA(image.Rect(0, 0, w, h))
 	for y := 0; y < h; y++ {
 		for x := 0; x < w; x++ {
@@ -30,7 +28,7 @@ func testPhoto(t testing.TB, dir, name string, w, h, orientation int) *survey.Ph
 	}
 	path := filepath.Join(dir, name)
 	os.WriteFile(path, b.Bytes(), 0o644)
-	return &survey.Photo{Name: name, Path: path, Orientation: orientation, Hash: name}
+	return Source{Path: path, Orientation: orientation, Hash: name}
 }
 
 // The planar reduction against x/image/draw's Catmull-Rom on the whole RGBA
@@ -38,7 +36,7 @@ func testPhoto(t testing.TB, dir, name string, w, h, orientation int) *survey.Ph
 func TestPlanarReductionMatchesDraw(t *testing.T) {
 	dir := t.TempDir()
 	ph := testPhoto(t, dir, "a.jpg", 2000, 1500, 1)
-	got, err := preparePhoto(ph.Path, 1, PhotoSettings{LongSide: 800, Quality: 95})
+	got, err := Prepare(ph.Path, 1, Settings{LongSide: 800, Quality: 95})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -99,8 +97,8 @@ func TestOrientPlanes(t *testing.T) {
 // The cache: a second run reads the same bytes back; other settings miss.
 func TestPhotoCache(t *testing.T) {
 	dir, cache := t.TempDir(), t.TempDir()
-	photos := []*survey.Photo{testPhoto(t, dir, "a.jpg", 900, 600, 6), testPhoto(t, dir, "b.jpg", 600, 900, 1)}
-	ps := PhotoSettings{LongSide: 400, Quality: 80, CacheDir: cache}
+	photos := []Source{testPhoto(t, dir, "a.jpg", 900, 600, 6), testPhoto(t, dir, "b.jpg", 600, 900, 1)}
+	ps := Settings{LongSide: 400, Quality: 80, CacheDir: cache}
 	first, second := collect(photos, ps), collect(photos, ps)
 	for i := range photos {
 		if first[i].err != nil || first[i].cached || !second[i].cached || !bytes.Equal(first[i].prep.JPEG, second[i].prep.JPEG) {
@@ -124,13 +122,37 @@ func TestPhotoCache(t *testing.T) {
 }
 
 // collect runs the photo stage and keeps every result, in order.
-func collect(photos []*survey.Photo, ps PhotoSettings) []photoResult {
-	out := make([]photoResult, 0, len(photos))
-	preparePhotos(photos, ps, func(i int, r photoResult) {
+func collect(photos []Source, ps Settings) []result {
+	out := make([]result, 0, len(photos))
+	stage(photos, ps, func(i int, r result) {
 		if i != len(out) {
 			panic("results out of order")
 		}
 		out = append(out, r)
 	})
 	return out
+}
+
+// Stage hands over every photo in input order, a file that cannot be
+// prepared with its error and the others unharmed.
+func TestStageOrderAndErrors(t *testing.T) {
+	dir := t.TempDir()
+	srcs := []Source{
+		testPhoto(t, dir, "a.jpg", 300, 200, 1),
+		{Path: filepath.Join(dir, "missing.jpg"), Orientation: 1},
+		testPhoto(t, dir, "c.jpg", 200, 300, 1),
+	}
+	var got []int
+	Stage(srcs, Settings{LongSide: 100, Quality: 80}, func(i int, p Prepared, err error) {
+		got = append(got, i)
+		if (err != nil) != (i == 1) {
+			t.Errorf("photo %d: error %v", i, err)
+		}
+		if i != 1 && (max(p.Width, p.Height) != 100 || len(p.JPEG) == 0) {
+			t.Errorf("photo %d: %d×%d, %d bytes", i, p.Width, p.Height, len(p.JPEG))
+		}
+	})
+	if len(got) != 3 || got[0] != 0 || got[1] != 1 || got[2] != 2 {
+		t.Errorf("order %v, want [0 1 2]", got)
+	}
 }

@@ -1,4 +1,4 @@
-package report
+package photo
 
 import (
 	"bytes"
@@ -10,8 +10,8 @@ import (
 	"golang.org/x/image/draw"
 )
 
-// PhotoSettings says how photos are embedded.
-type PhotoSettings struct {
+// Settings say how photos are prepared.
+type Settings struct {
 	LongSide int    // pixels on the long side at most
 	Quality  int    // JPEG quality 1..100
 	CacheDir string // folder of reduced photos kept between runs; "" for none
@@ -19,17 +19,17 @@ type PhotoSettings struct {
 	Progress func(done, total int)
 }
 
-// preparedPhoto is a photo ready to embed: upright, reduced, re-encoded.
-type preparedPhoto struct {
+// Prepared is a photo ready to embed: upright, reduced, re-encoded as JPEG.
+type Prepared struct {
 	JPEG          []byte
 	Width, Height int
 }
 
-// preparePhoto reads a JPEG, reduces it to fit LongSide, turns it upright by
-// its EXIF orientation and encodes it again. Baseline 4:2:0 and 4:4:4 JPEGs
-// (what cameras and phones write) are reduced and turned on their Y, Cb and
-// Cr planes; other layouts go through RGBA.
-func preparePhoto(path string, orientation int, ps PhotoSettings) (p preparedPhoto, err error) {
+// Prepare reads a JPEG, reduces it to fit s.LongSide, turns it upright by its
+// EXIF orientation (1..8) and encodes it again at s.Quality. Baseline 4:2:0
+// and 4:4:4 JPEGs (what cameras and phones write) are reduced and turned on
+// their Y, Cb and Cr planes; other layouts go through RGBA.
+func Prepare(path string, orientation int, s Settings) (p Prepared, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			err = fmt.Errorf("cannot decode: %v", r)
@@ -40,13 +40,13 @@ func preparePhoto(path string, orientation int, ps PhotoSettings) (p preparedPho
 		return p, err
 	}
 	var src image.Image
-	if y, ok := fastDecode(data, ps.LongSide); ok {
+	if y, ok := fastDecode(data, s.LongSide); ok {
 		src = y
 	} else if src, err = jpeg.Decode(bytes.NewReader(data)); err != nil {
 		return p, fmt.Errorf("cannot decode: %w", err)
 	}
 	sb := src.Bounds()
-	w, h := fitLongSide(sb.Dx(), sb.Dy(), ps.LongSide)
+	w, h := fitLongSide(sb.Dx(), sb.Dy(), s.LongSide)
 	var img image.Image
 	if y, ok := src.(*image.YCbCr); ok && (y.SubsampleRatio == image.YCbCrSubsampleRatio420 || y.SubsampleRatio == image.YCbCrSubsampleRatio444) {
 		if w != sb.Dx() || h != sb.Dy() {
@@ -54,19 +54,19 @@ func preparePhoto(path string, orientation int, ps PhotoSettings) (p preparedPho
 		}
 		img = orientYCbCr(y, orientation)
 	} else {
-		img = orient(reduce(src, ps.LongSide), orientation)
+		img = orient(reduce(src, s.LongSide), orientation)
 	}
 	b := img.Bounds()
 	if y, ok := img.(*image.YCbCr); ok {
-		if out, ok := fastEncode(y, ps.Quality); ok {
-			return preparedPhoto{JPEG: out, Width: b.Dx(), Height: b.Dy()}, nil
+		if out, ok := fastEncode(y, s.Quality); ok {
+			return Prepared{JPEG: out, Width: b.Dx(), Height: b.Dy()}, nil
 		}
 	}
 	var buf bytes.Buffer
-	if err := jpeg.Encode(&buf, img, &jpeg.Options{Quality: ps.Quality}); err != nil {
+	if err := jpeg.Encode(&buf, img, &jpeg.Options{Quality: s.Quality}); err != nil {
 		return p, err
 	}
-	return preparedPhoto{JPEG: buf.Bytes(), Width: b.Dx(), Height: b.Dy()}, nil
+	return Prepared{JPEG: buf.Bytes(), Width: b.Dx(), Height: b.Dy()}, nil
 }
 
 // fitLongSide scales w × h down (never up) so the long side is at most long.

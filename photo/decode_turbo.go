@@ -1,6 +1,6 @@
 //go:build turbojpeg && cgo
 
-package report
+package photo
 
 /*
 #cgo LDFLAGS: -lturbojpeg

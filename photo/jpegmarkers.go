@@ -1,4 +1,4 @@
-package report
+package photo
 
 // progressive reports whether a JPEG's frame is progressive (an SOF2 or
 // later progressive start-of-frame marker before the first scan).

@@ -1,0 +1,123 @@
+package photo
+
+import (
+	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
+	"fmt"
+	"image/jpeg"
+	"os"
+	"path/filepath"
+	"runtime"
+	"sync"
+)
+
+// Source is what the photo stage needs to know about one file.
+type Source struct {
+	Path        string
+	Hash        string // content hash (Header.Hash); "" bypasses the cache
+	Orientation int    // EXIF orientation 1..8
+}
+
+// result is one photo after the photo stage.
+type result struct {
+	prep   Prepared
+	err    error
+	cached bool
+}
+
+// Stage prepares srcs on all cores and hands each result to use, in input
+// order, as soon as it and all before it are done. Each worker holds one
+// decoded image at a time and results are not kept here, so memory does not
+// grow with the number of photos. With s.CacheDir set, a photo whose content
+// and settings were seen before is read back instead of prepared again.
+func Stage(srcs []Source, s Settings, use func(i int, p Prepared, err error)) {
+	stage(srcs, s, func(i int, r result) { use(i, r.prep, r.err) })
+}
+
+func stage(srcs []Source, s Settings, use func(i int, r result)) {
+	workers := min(runtime.GOMAXPROCS(0), max(len(srcs), 1))
+	jobs := make(chan int)
+	type done struct {
+		i int
+		r result
+	}
+	results := make(chan done, workers)
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range jobs {
+				results <- done{i, prepareCached(srcs[i], s)}
+			}
+		}()
+	}
+	go func() {
+		for i := range srcs {
+			jobs <- i
+		}
+		close(jobs)
+		wg.Wait()
+		close(results)
+	}()
+	pending := map[int]result{}
+	next, count := 0, 0
+	for d := range results {
+		count++
+		if s.Progress != nil {
+			s.Progress(count, len(srcs))
+		}
+		pending[d.i] = d.r
+		for r, ok := pending[next]; ok; r, ok = pending[next] {
+			use(next, r)
+			delete(pending, next)
+			next++
+		}
+	}
+}
+
+// cacheVersion changes whenever the reduction changes what it writes.
+const cacheVersion = "planar-catmull-rom-1"
+
+// cacheKey names a reduced photo by the original's content and every setting
+// that shapes the result.
+func cacheKey(src Source, s Settings) string {
+	sum := sha256.Sum256([]byte(fmt.Sprintf("%s|%s|%d|%d|%d", cacheVersion, src.Hash, src.Orientation, s.LongSide, s.Quality)))
+	return hex.EncodeToString(sum[:])
+}
+
+func prepareCached(src Source, s Settings) result {
+	if s.CacheDir == "" || src.Hash == "" {
+		p, err := Prepare(src.Path, src.Orientation, s)
+		return result{prep: p, err: err}
+	}
+	key := cacheKey(src, s)
+	path := filepath.Join(s.CacheDir, key[:2], key+".jpg")
+	if data, err := os.ReadFile(path); err == nil {
+		if cfg, err := jpeg.DecodeConfig(bytes.NewReader(data)); err == nil {
+			return result{prep: Prepared{JPEG: data, Width: cfg.Width, Height: cfg.Height}, cached: true}
+		}
+	}
+	p, err := Prepare(src.Path, src.Orientation, s)
+	if err == nil {
+		storeCached(path, p.JPEG) // a cache that cannot be written only costs time
+	}
+	return result{prep: p, err: err}
+}
+
+// storeCached writes a cache entry atomically (temporary file, then rename).
+func storeCached(path string, data []byte) {
+	if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+		return
+	}
+	tmp, err := os.CreateTemp(filepath.Dir(path), ".tmp-*")
+	if err != nil {
+		return
+	}
+	_, werr := tmp.Write(data)
+	cerr := tmp.Close()
+	if werr != nil || cerr != nil || os.Rename(tmp.Name(), path) != nil {
+		os.Remove(tmp.Name())
+	}
+}
