@@ -11,6 +11,20 @@ import (
 // ChecklistFile is the name of the checklist in a survey folder.
 const ChecklistFile = "survey.md"
 
+// FolderOf returns the survey folder a command-line argument names: the
+// argument itself, or the folder holding it when it is the path of a
+// survey.md (which need not exist yet, so that the missing file is what the
+// reader reports).
+func FolderOf(arg string) string {
+	if !strings.EqualFold(filepath.Base(arg), ChecklistFile) {
+		return arg
+	}
+	if fi, err := os.Stat(arg); err == nil && fi.IsDir() {
+		return arg
+	}
+	return filepath.Dir(arg)
+}
+
 // Options are the reading settings.
 type Options struct {
 	MaxMegapixels float64

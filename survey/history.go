@@ -52,6 +52,7 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 			if base != "" && !filepath.IsAbs(d) {
 				d = filepath.Join(base, d)
 			}
+			d = FolderOf(d)
 			if seen[absPath(d)] {
 				continue
 			}
