@@ -20,6 +20,9 @@ type Assessed struct {
 // (see wallloss.CompareUrgency).
 func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 	latest := s.LatestVisit()
+	if s.InDays(latest) {
+		latest = s.Date // a reading on any of the survey's days belongs to this visit
+	}
 	var items []*Assessed
 	for _, loc := range s.AllCMLs() {
 		in := inputFor(loc, loc.CML.Visits, latest)

@@ -56,6 +56,7 @@ func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
 		return nil, l
 	}
 	s, problems := ParseChecklist(file, src)
+	joinSurveyDays(s)
 	problems = append(problems, ComputeRequired(s)...)
 	s.Dir = dir
 	photos, skipped, photoProblems := ScanPhotos(dir, opt.MaxMegapixels)

@@ -82,8 +82,8 @@ func (r *checklistReader) columns(header ast.Node, line int) []tableColumn {
 				break
 			}
 			seen[d.String()] = true
-			if !r.survey.Date.IsZero() && d.After(r.survey.Date) {
-				r.problems.Errorf(r.file, line, "visit column %s is later than this visit's date %s", d, r.survey.Date.Format("2006-01-02"))
+			if !r.survey.Date.IsZero() && d.After(r.survey.LastDay()) {
+				r.problems.Errorf(r.file, line, "visit column %s is later than %s", d, r.survey.dayLimit())
 				break
 			}
 			col.role, col.date = colVisit, d
