@@ -40,7 +40,13 @@ func Load(dir string) (*Survey, ProblemList) { return LoadWith(dir, DefaultOptio
 // LoadWith reads a survey folder: the checklist and the photos it names or
 // holds. It never writes to the folder. Problems come back sorted; the survey
 // is usable only when none of them is an error. Photos are placed by LoadSeries.
-func LoadWith(dir string, opt Options) (*Survey, ProblemList) { return sorted(loadFolder(dir, opt)) }
+func LoadWith(dir string, opt Options) (*Survey, ProblemList) {
+	s, problems := loadFolder(dir, opt)
+	if s != nil {
+		problems = append(problems, requiredWarnings(s)...)
+	}
+	return sorted(s, problems)
+}
 
 // loadFolder is LoadWith before its problems are sorted.
 func loadFolder(dir string, opt Options) (*Survey, ProblemList) {

@@ -73,8 +73,11 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 	}
 	visit(s, s.Previous, s.PrevLine, dir)
 	visit(s, extra, 0, "")
-	if !problems.HasErrors() && len(earlier) > 0 {
-		problems = append(problems, Merge(s, earlier)...)
+	if len(earlier) == 0 || !problems.HasErrors() {
+		if len(earlier) > 0 {
+			problems = append(problems, Merge(s, earlier)...)
+		}
+		problems = append(problems, requiredWarnings(s)...)
 	}
 	problems = append(problems, readingChecks(s)...)
 	if !problems.HasErrors() {
