@@ -39,7 +39,7 @@ func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 func inputFor(loc Located, visits []Visit, latest time.Time) wallloss.Input {
 	d := loc.Component.Design
 	in := wallloss.Input{
-		NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest,
+		NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest, OutOfScope: loc.Component.OutOfScope,
 		RateModel: d.RateModel, Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity, Metal: d.Metal,
 	}
 	if d.Installed != nil {

@@ -63,6 +63,7 @@ func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
 	}
 	s, problems := ParseChecklist(file, src)
 	joinSurveyDays(s)
+	problems = append(problems, applyScope(s)...)
 	problems = append(problems, ComputeRequired(s)...)
 	s.Dir = dir
 	photos, skipped, photoProblems := ScanPhotos(dir, opt.MaxMegapixels)

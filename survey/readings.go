@@ -106,7 +106,7 @@ func (r *checklistReader) addVisitDate(d VisitDate) {
 
 func (r *checklistReader) row(row ast.Node, cols []tableColumn) {
 	line := r.lineOf(row)
-	cml := &CML{Line: line}
+	cml := &CML{File: r.file, Line: line}
 	i := 0
 	for cell := row.FirstChild(); cell != nil && i < len(cols); cell, i = cell.NextSibling(), i+1 {
 		v := r.cellText(cell)
