@@ -8,12 +8,12 @@ import (
 )
 
 // closeNames returns up to n names of have that want was probably meant to
-// be, nearest first: those within a few edits of it (case ignored; at most a
-// quarter of its length, and at least 2), or with the same last path element
-// in another folder.
+// be: the nearest of those within a few edits of it (case ignored; at most
+// one edit per six characters, and at least 2), or with the same last path
+// element in another folder, which counts as the most edits allowed.
 func closeNames(want string, have []string, n int) []string {
 	w := strings.ToLower(want)
-	limit := max(2, utf8.RuneCountInString(w)/4)
+	limit := max(2, utf8.RuneCountInString(w)/6)
 	type near struct {
 		name string
 		d    int
@@ -37,7 +37,9 @@ func closeNames(want string, have []string, n int) []string {
 	})
 	var out []string
 	for _, f := range found[:min(n, len(found))] {
-		out = append(out, f.name)
+		if f.d == found[0].d {
+			out = append(out, f.name)
+		}
 	}
 	return out
 }

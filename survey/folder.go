@@ -101,7 +101,7 @@ func linkPhotos(s *Survey) ProblemList {
 			}
 			p, ok := byName[name]
 			if !ok {
-				why := "is not in " + filepath.Join(s.Dir, PhotoDir)
+				why := "is not in " + filepath.Join(s.Dir, PhotoDir) + didYouMean(closeNames(name, photoNames(s), 3))
 				for _, sk := range s.Skipped {
 					if sk.Name == name {
 						why = "was skipped: " + sk.Reason
@@ -117,4 +117,12 @@ func linkPhotos(s *Survey) ProblemList {
 		}
 	}
 	return problems
+}
+
+func photoNames(s *Survey) []string {
+	names := make([]string, len(s.Photos))
+	for i, p := range s.Photos {
+		names[i] = p.Name
+	}
+	return names
 }

@@ -85,6 +85,7 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 			problems = append(problems, Merge(s, earlier)...)
 		}
 		problems = append(problems, requiredWarnings(s)...)
+		problems = append(problems, plausibility(s)...)
 	}
 	problems = append(problems, readingChecks(s)...)
 	if !problems.HasErrors() {
