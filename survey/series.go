@@ -39,7 +39,7 @@ func (r *checklistReader) seriesFrontMatter(m map[string]any) {
 // line is where from names e (0 when a flag does).
 func sameSite(from, e *Survey, line int) ProblemList {
 	var problems ProblemList
-	const fix = "; if it is the same site, name the folder under previous-other-site: instead of previous:"
+	const fix = "; if it is the same site, name that folder under previous-other-site: in this survey's front matter"
 	if a, b := siteName(from.Site), siteName(e.Site); a != "" && b != "" && a != b {
 		problems.Errorf(from.File, from.SiteLine, "site %q differs from site %q of the previous survey %s at %s:%d%s",
 			from.Site, e.Site, e.Dir, e.File, e.SiteLine, fix)

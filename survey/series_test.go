@@ -24,7 +24,7 @@ func TestPreviousOfAnotherSite(t *testing.T) {
 	}{
 		{"site", "previous: ../south\n", nil,
 			`site/survey.md:3: site "Example terminal, north yard" differs from site "Example terminal, south yard" of the previous survey ` +
-				filepath.Join(root, "south") + " at " + filepath.Join(other, "survey.md") + ":3; if it is the same site, name the folder under previous-other-site:"},
+				filepath.Join(root, "south") + " at " + filepath.Join(other, "survey.md") + ":3; if it is the same site, name that folder under previous-other-site: in this survey's front matter"},
 		{"flag", "", []string{other},
 			`flag/survey.md:3: site "Example terminal, north yard" differs from site "Example terminal, south yard"`},
 		{"assets", "previous:\n  - ../tanks\n", nil,
