@@ -6,7 +6,6 @@ import (
 	"strings"
 
 	"github.com/lossline/lossline/survey"
-	"github.com/lossline/lossline/survey/wallloss"
 )
 
 // changesSection writes "Changes since the last visit": what changed per CML,
@@ -51,7 +50,7 @@ func (d *doc) changesSection() {
 		for i, c := range changed {
 			it, r := c.Item, c.Item.Result
 			before, now := none, day(r.CurrentDate)+": "+d.u.thick(r.ThicknessMM)
-			if n := len(it.CML.Visits); n >= 2 && !r.HasFlag(wallloss.FlagNotMeasuredLatest) {
+			if n := len(it.CML.Visits); n >= 2 && !r.FromEarlierVisit() {
 				prev := it.CML.Visits[n-2]
 				before = prev.Date.String() + ": " + d.u.u.Format(prev.Governing())
 			}

@@ -218,7 +218,7 @@ func (d *doc) results(c *survey.Component) {
 		}
 		r := it.Result
 		thick := d.u.thick(r.ThicknessMM)
-		if r.HasFlag(wallloss.FlagNotMeasuredLatest) {
+		if r.FromEarlierVisit() {
 			thick += " (" + day(r.CurrentDate) + ")"
 		}
 		next := day(r.NextInspection)

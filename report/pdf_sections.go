@@ -55,7 +55,7 @@ func (d *doc) headlines() {
 	var shortest, earliest *survey.Assessed
 	for _, it := range d.items {
 		r := it.Result
-		if r.ThicknessMM != nil && !r.HasFlag(wallloss.FlagNotMeasuredLatest) {
+		if r.ThicknessMM != nil && !r.FromEarlierVisit() {
 			measured++
 		}
 		if r.Class == wallloss.AtOrBelowRequired {
@@ -168,6 +168,9 @@ func (d *doc) summary() {
 	var open [][]string
 	for _, a := range d.s.Assets {
 		for _, c := range a.Components {
+			if c.OutOfScope {
+				open = append(open, []string{a.Name + " / " + c.Name, "out of scope at this visit (front matter scope:): its results date from earlier visits"})
+			}
 			for _, it := range c.Scope {
 				if !it.Done {
 					open = append(open, []string{a.Name + " / " + c.Name, it.Text})

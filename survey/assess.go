@@ -20,6 +20,9 @@ type Assessed struct {
 // (see wallloss.CompareUrgency).
 func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 	latest := s.LatestVisit()
+	if s.InDays(latest) {
+		latest = s.Date // a reading on any of the survey's days belongs to this visit
+	}
 	var items []*Assessed
 	for _, loc := range s.AllCMLs() {
 		in := inputFor(loc, loc.CML.Visits, latest)
@@ -36,7 +39,7 @@ func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 func inputFor(loc Located, visits []Visit, latest time.Time) wallloss.Input {
 	d := loc.Component.Design
 	in := wallloss.Input{
-		NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest,
+		NominalMM: d.NominalMM, RequiredMM: d.RequiredMM, LatestVisit: latest, OutOfScope: loc.Component.OutOfScope,
 		RateModel: d.RateModel, Rule: d.Rule, AssumedRateMMPerY: d.AssumedRateMMPerY, Corrosivity: d.Corrosivity, Metal: d.Metal,
 	}
 	if d.Installed != nil {

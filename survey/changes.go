@@ -20,6 +20,7 @@ const (
 	ChangeLongerWindow                          // moved into a less urgent repair window
 	ChangeGainedFlag                            // a flag the previous result did not carry
 	ChangeLostFlag                              // a flag the previous result carried
+	ChangeOutOfScope                            // outside the scope of this visit (front matter scope:)
 )
 
 // ChangeCode is one change at a CML; Flag is set for gained and lost flags.
@@ -31,14 +32,14 @@ type ChangeCode struct {
 var changeCodes = map[ChangeKind]string{
 	ChangeNewCML: "new-cml", ChangeNotRemeasured: "not-remeasured", ChangeCrossedRequired: "crossed-required",
 	ChangeAccelerating: "accelerating", ChangeShorterWindow: "shorter-window", ChangeLongerWindow: "longer-window",
-	ChangeGainedFlag: "gained-flag:", ChangeLostFlag: "lost-flag:",
+	ChangeGainedFlag: "gained-flag:", ChangeLostFlag: "lost-flag:", ChangeOutOfScope: "out-of-scope",
 }
 
 var changeWords = map[ChangeKind]string{
 	ChangeNewCML: "new CML, first measured at this visit", ChangeNotRemeasured: "not measured at this visit",
 	ChangeCrossedRequired: "CROSSED THE REQUIRED THICKNESS", ChangeAccelerating: "ACCELERATING",
 	ChangeShorterWindow: "moved into a shorter repair window", ChangeLongerWindow: "moved into a longer repair window",
-	ChangeGainedFlag: "now flagged ", ChangeLostFlag: "no longer flagged ",
+	ChangeGainedFlag: "now flagged ", ChangeLostFlag: "no longer flagged ", ChangeOutOfScope: "out of scope at this visit",
 }
 
 // String is the stable code results.json writes ("gained-flag:" and
@@ -86,7 +87,7 @@ type Change struct {
 // flagsThatFollowVisits change with the number of visits alone, so gaining or
 // losing them says nothing about the wall.
 var flagsThatFollowVisits = []wallloss.Flag{wallloss.FlagSingleVisit, wallloss.FlagEstimate, wallloss.FlagNominalBased, wallloss.FlagNoRate,
-	wallloss.FlagFitNeedsThree, wallloss.FlagNotMeasuredLatest}
+	wallloss.FlagFitNeedsThree, wallloss.FlagNotMeasuredLatest, wallloss.FlagOutOfScope}
 
 // Changes compares each CML's latest visit with the one before, in rank order;
 // the photos of each CML come from photos.
@@ -105,12 +106,14 @@ func Changes(s *Survey, items []*Assessed, photos *PhotoIndex, p wallloss.Policy
 		r := it.Result
 		switch {
 		case len(visits) == 0:
+		case r.HasFlag(wallloss.FlagOutOfScope):
+			c.Codes = append(c.Codes, ChangeCode{Kind: ChangeOutOfScope})
 		case r.HasFlag(wallloss.FlagNotMeasuredLatest):
 			c.Codes = append(c.Codes, ChangeCode{Kind: ChangeNotRemeasured})
 		case len(visits) == 1:
 			c.Codes = append(c.Codes, ChangeCode{Kind: ChangeNewCML})
 		}
-		if len(visits) >= 2 && !r.HasFlag(wallloss.FlagNotMeasuredLatest) {
+		if len(visits) >= 2 && !r.FromEarlierVisit() {
 			loc := Located{Asset: it.Asset, Component: it.Component, CML: it.CML}
 			prevVisits := visits[:len(visits)-1]
 			prev := wallloss.Assess(inputFor(loc, prevVisits, prevVisits[len(prevVisits)-1].Date.Time), p)

@@ -69,7 +69,7 @@ func (r *checklistReader) lineOf(n ast.Node) int {
 }
 
 // frontMatterKeys are the keys the front matter may hold.
-var frontMatterKeys = []string{"title", "site", "date", "inspector", "units", "previous", "days"}
+var frontMatterKeys = []string{"title", "site", "date", "inspector", "units", "previous", "days", "previous-other-site", "scope"}
 
 func (r *checklistReader) frontMatter(ctx parser.Context) {
 	s := r.survey
@@ -148,6 +148,7 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 			r.problems.Errorf(r.file, s.PrevLine, "previous: give a folder or a list of folders")
 		}
 	}
+	r.seriesFrontMatter(m)
 	var unknown []string
 	for k := range m {
 		if !slices.Contains(frontMatterKeys, k) {

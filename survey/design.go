@@ -12,8 +12,8 @@ import (
 // under it, and checks each component's required thickness against its
 // nominal. It uses only the survey's own design data; Load runs it on each
 // checklist before Merge, so a later survey inherits computed values. Problems
-// point at the `required:` line, or at the component heading when there is no
-// required thickness.
+// point at the `required:` line. A missing required thickness is judged by
+// requiredWarnings, once earlier surveys are merged in.
 func ComputeRequired(s *Survey) ProblemList {
 	var problems ProblemList
 	for _, a := range s.Assets {
@@ -26,7 +26,19 @@ func ComputeRequired(s *Survey) ProblemList {
 				problems.Errorf(c.File, d.Lines["required"], "required %s %s is above nominal %s %s in %q",
 					s.Units.Format(*d.RequiredMM), s.Units, s.Units.Format(*d.NominalMM), s.Units, c.Name)
 			}
-			if d.RequiredMM == nil {
+		}
+	}
+	return problems
+}
+
+// requiredWarnings warns of components with no required thickness, written,
+// computed or inherited from an earlier survey; it runs after Merge, so design
+// data a follow-up survey inherits raises nothing.
+func requiredWarnings(s *Survey) ProblemList {
+	var problems ProblemList
+	for _, a := range s.Assets {
+		for _, c := range a.Components {
+			if c.Design.RequiredMM == nil {
 				problems.Warnf(c.File, c.Line, "%q has no required thickness: no remaining life can be computed", c.Name)
 			}
 		}

@@ -48,8 +48,8 @@ func TestRequiredComputedAfterReading(t *testing.T) {
 	}
 }
 
-// Problems of the computation point at the `required:` line, or at the
-// component heading when no required thickness results.
+// Problems of the computation point at the `required:` line; the warning of
+// a missing required thickness (judged after the merge) at the component heading.
 func TestComputeRequiredProblemLines(t *testing.T) {
 	src := "---\ntitle: x\ndate: 2025-01-01\nunits: mm\n---\n## C\n\n- nominal: 2\n" + pipeDesign[len("- nominal: 10\n"):] +
 		"\n| CML | 2024-01-01 |\n|---|---|\n| A | 1.9 |\n\n## D\n\n- required: section loss\n  - allowed section loss: 25 %\n" +
@@ -59,7 +59,7 @@ func TestComputeRequiredProblemLines(t *testing.T) {
 		t.Fatalf("reader problems %v", problems)
 	}
 	var got []string
-	for _, p := range ComputeRequired(s) {
+	for _, p := range append(ComputeRequired(s), requiredWarnings(s)...) {
 		got = append(got, p.String())
 	}
 	want := []string{

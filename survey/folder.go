@@ -11,6 +11,20 @@ import (
 // ChecklistFile is the name of the checklist in a survey folder.
 const ChecklistFile = "survey.md"
 
+// FolderOf returns the survey folder a command-line argument names: the
+// argument itself, or the folder holding it when it is the path of a
+// survey.md (which need not exist yet, so that the missing file is what the
+// reader reports).
+func FolderOf(arg string) string {
+	if !strings.EqualFold(filepath.Base(arg), ChecklistFile) {
+		return arg
+	}
+	if fi, err := os.Stat(arg); err == nil && fi.IsDir() {
+		return arg
+	}
+	return filepath.Dir(arg)
+}
+
 // Options are the reading settings.
 type Options struct {
 	MaxMegapixels float64
@@ -26,7 +40,13 @@ func Load(dir string) (*Survey, ProblemList) { return LoadWith(dir, DefaultOptio
 // LoadWith reads a survey folder: the checklist and the photos it names or
 // holds. It never writes to the folder. Problems come back sorted; the survey
 // is usable only when none of them is an error. Photos are placed by LoadSeries.
-func LoadWith(dir string, opt Options) (*Survey, ProblemList) { return sorted(loadFolder(dir, opt)) }
+func LoadWith(dir string, opt Options) (*Survey, ProblemList) {
+	s, problems := loadFolder(dir, opt)
+	if s != nil {
+		problems = append(problems, requiredWarnings(s)...)
+	}
+	return sorted(s, problems)
+}
 
 // loadFolder is LoadWith before its problems are sorted.
 func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
@@ -42,6 +62,8 @@ func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
 		return nil, l
 	}
 	s, problems := ParseChecklist(file, src)
+	joinSurveyDays(s)
+	problems = append(problems, applyScope(s)...)
 	problems = append(problems, ComputeRequired(s)...)
 	s.Dir = dir
 	photos, skipped, photoProblems := ScanPhotos(dir, opt.MaxMegapixels)
@@ -79,7 +101,7 @@ func linkPhotos(s *Survey) ProblemList {
 			}
 			p, ok := byName[name]
 			if !ok {
-				why := "is not in " + filepath.Join(s.Dir, PhotoDir)
+				why := "is not in " + filepath.Join(s.Dir, PhotoDir) + didYouMean(closeNames(name, photoNames(s), 3))
 				for _, sk := range s.Skipped {
 					if sk.Name == name {
 						why = "was skipped: " + sk.Reason
@@ -95,4 +117,12 @@ func linkPhotos(s *Survey) ProblemList {
 		}
 	}
 	return problems
+}
+
+func photoNames(s *Survey) []string {
+	names := make([]string, len(s.Photos))
+	for i, p := range s.Photos {
+		names[i] = p.Name
+	}
+	return names
 }

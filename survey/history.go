@@ -46,12 +46,15 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 	}
 	seen := map[string]bool{absPath(dir): true}
 	var earlier []*Survey
-	var visit func(from *Survey, dirs []string, line int, base string)
-	visit = func(from *Survey, dirs []string, line int, base string) {
+	// visit loads the earlier surveys from names in dirs (relative to base) at
+	// line; otherSite when they are named under previous-other-site:.
+	var visit func(from *Survey, dirs []string, line int, base string, otherSite bool)
+	visit = func(from *Survey, dirs []string, line int, base string, otherSite bool) {
 		for _, d := range dirs {
 			if base != "" && !filepath.IsAbs(d) {
 				d = filepath.Join(base, d)
 			}
+			d = FolderOf(d)
 			if seen[absPath(d)] {
 				continue
 			}
@@ -66,14 +69,23 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 			if p.HasErrors() {
 				continue
 			}
+			if !otherSite {
+				problems = append(problems, sameSite(from, e, line)...)
+			}
 			earlier = append(earlier, e)
-			visit(e, e.Previous, e.PrevLine, e.Dir)
+			visit(e, e.OtherSite, e.OtherSiteLine, e.Dir, true)
+			visit(e, e.Previous, e.PrevLine, e.Dir, false)
 		}
 	}
-	visit(s, s.Previous, s.PrevLine, dir)
-	visit(s, extra, 0, "")
-	if !problems.HasErrors() && len(earlier) > 0 {
-		problems = append(problems, Merge(s, earlier)...)
+	visit(s, s.OtherSite, s.OtherSiteLine, dir, true)
+	visit(s, s.Previous, s.PrevLine, dir, false)
+	visit(s, extra, 0, "", false)
+	if len(earlier) == 0 || !problems.HasErrors() {
+		if len(earlier) > 0 {
+			problems = append(problems, Merge(s, earlier)...)
+		}
+		problems = append(problems, requiredWarnings(s)...)
+		problems = append(problems, plausibility(s)...)
 	}
 	problems = append(problems, readingChecks(s)...)
 	if !problems.HasErrors() {
@@ -89,9 +101,9 @@ func readingChecks(s *Survey) ProblemList {
 	for _, loc := range s.AllCMLs() {
 		m, d := loc.CML, loc.Component.Design
 		if len(m.Visits) == 0 {
-			problems.Warnf(s.File, m.Line, "CML %s has no readings", m.ID)
+			problems.Warnf(m.File, m.Line, "CML %s has no readings", m.ID)
 		} else if d.Installed != nil && m.Visits[0].Date.Time.Before(d.Installed.Time) {
-			problems.Warnf(s.File, m.Line, "CML %s has a reading dated before the installed date %s", m.ID, d.Installed)
+			problems.Warnf(m.File, m.Line, "CML %s has a reading dated before the installed date %s", m.ID, d.Installed)
 		}
 	}
 	return problems
@@ -109,6 +121,8 @@ func absPath(d string) string {
 // an id listed in s's `was` column. The same visit in two files must hold the
 // same readings. Design data missing from s is taken from the newest earlier
 // survey that gives it; changed nominal or required thicknesses are recorded.
+// A CML s does not list is dropped, unless s's scope leaves its asset or
+// component out of this visit: then it is carried into s, out of scope.
 func Merge(s *Survey, earlier []*Survey) ProblemList {
 	var problems ProblemList
 	slices.SortStableFunc(earlier, func(a, b *Survey) int { return b.Date.Compare(a.Date) })
@@ -139,6 +153,10 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 	for _, e := range earlier {
 		for _, old := range e.AllCMLs() {
 			cur, ok := byID[old.CML.ID]
+			if !ok && len(old.CML.Visits) > 0 && !s.covers(old.Asset.Name, old.Component.Name) {
+				cur, ok = carryIn(s, old), true
+				byID[old.CML.ID] = cur
+			}
 			if !ok {
 				if !dropped[old.CML.ID] && len(old.CML.Visits) > 0 {
 					dropped[old.CML.ID] = true

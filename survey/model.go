@@ -27,6 +27,15 @@ type Survey struct {
 	PrevLine  int       // line of the previous: key
 	History   *History  // what earlier surveys added; nil when there are none
 	Problems  []Problem // warnings, sorted, as Load or LoadSeries returned them (errors stop the read)
+
+	// OtherSite lists earlier survey folders named under previous-other-site:,
+	// merged although their site differs or they share no asset with this one.
+	OtherSite     []string
+	OtherSiteLine int
+	// VisitScope lists the assets and components this visit covers (front
+	// matter scope:); empty when it covers everything its tables list.
+	VisitScope []ScopeEntry
+	SiteLine   int // line of the site: key
 }
 
 // Asset is a tank, a piping system, a bridge: a `# heading` in the checklist.
@@ -49,6 +58,9 @@ type Component struct {
 	Notes  []Note
 	// VisitDates lists the dates of the reading table's visit columns, oldest first.
 	VisitDates []VisitDate
+	// OutOfScope is set when the front matter's scope: leaves the component
+	// out of this visit; its results date from earlier visits.
+	OutOfScope bool
 }
 
 // Design is a component's design data from its `key: value` list.
@@ -90,6 +102,7 @@ type MethodInput struct {
 // CML is a condition monitoring location: one row of a reading table.
 type CML struct {
 	ID        string
+	File      string // checklist the row was read from
 	Line      int
 	Location  string
 	GPS       *LatLon

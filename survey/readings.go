@@ -82,8 +82,8 @@ func (r *checklistReader) columns(header ast.Node, line int) []tableColumn {
 				break
 			}
 			seen[d.String()] = true
-			if !r.survey.Date.IsZero() && d.After(r.survey.Date) {
-				r.problems.Errorf(r.file, line, "visit column %s is later than this visit's date %s", d, r.survey.Date.Format("2006-01-02"))
+			if !r.survey.Date.IsZero() && d.After(r.survey.LastDay()) {
+				r.problems.Errorf(r.file, line, "visit column %s is later than %s", d, r.survey.dayLimit())
 				break
 			}
 			col.role, col.date = colVisit, d
@@ -106,7 +106,7 @@ func (r *checklistReader) addVisitDate(d VisitDate) {
 
 func (r *checklistReader) row(row ast.Node, cols []tableColumn) {
 	line := r.lineOf(row)
-	cml := &CML{Line: line}
+	cml := &CML{File: r.file, Line: line}
 	i := 0
 	for cell := row.FirstChild(); cell != nil && i < len(cols); cell, i = cell.NextSibling(), i+1 {
 		v := r.cellText(cell)

@@ -24,12 +24,13 @@ func newCheckCmd() *cobra.Command {
 }
 
 func runCheck(c *cobra.Command, args []string) error {
-	set, err := loadSettings(c, args[0])
+	dir := survey.FolderOf(args[0])
+	set, err := loadSettings(c, dir)
 	if err != nil {
 		return err
 	}
 	previous, _ := c.Flags().GetStringSlice("previous")
-	_, problems := survey.LoadSeries(args[0], previous, set.Read)
+	_, problems := survey.LoadSeries(dir, previous, set.Read)
 	w := c.OutOrStdout()
 	errs := 0
 	for _, p := range problems {

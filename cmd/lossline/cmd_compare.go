@@ -25,7 +25,7 @@ func newCompareCmd() *cobra.Command {
 }
 
 func runCompare(c *cobra.Command, args []string) error {
-	oldDir, newDir := args[0], args[1]
+	oldDir, newDir := survey.FolderOf(args[0]), survey.FolderOf(args[1])
 	set, err := loadSettings(c, newDir)
 	if err != nil {
 		return err

@@ -24,12 +24,13 @@ func newPhotosCmd() *cobra.Command {
 }
 
 func runPhotos(c *cobra.Command, args []string) error {
-	set, err := loadSettings(c, args[0])
+	dir := survey.FolderOf(args[0])
+	set, err := loadSettings(c, dir)
 	if err != nil {
 		return err
 	}
 	previous, _ := c.Flags().GetStringSlice("previous")
-	s, problems := survey.LoadSeries(args[0], previous, set.Read)
+	s, problems := survey.LoadSeries(dir, previous, set.Read)
 	if problems.HasErrors() {
 		return survey.InputError{Problems: problems}
 	}

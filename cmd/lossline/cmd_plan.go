@@ -33,7 +33,7 @@ func newPlanCmd() *cobra.Command {
 }
 
 func runPlan(c *cobra.Command, args []string) error {
-	set, err := loadSettings(c, args[0])
+	set, err := loadSettings(c, survey.FolderOf(args[0]))
 	if err != nil {
 		return err
 	}
@@ -42,7 +42,7 @@ func runPlan(c *cobra.Command, args []string) error {
 	}
 	var surveys []*survey.Survey
 	for _, dir := range args {
-		s, problems := survey.LoadSeries(dir, nil, set.Read)
+		s, problems := survey.LoadSeries(survey.FolderOf(dir), nil, set.Read)
 		if problems.HasErrors() {
 			return survey.InputError{Problems: problems}
 		}

@@ -33,7 +33,7 @@ func newReportCmd() *cobra.Command {
 }
 
 func runReport(c *cobra.Command, args []string) error {
-	dir := args[0]
+	dir := survey.FolderOf(args[0])
 	out, _ := c.Flags().GetString("out")
 	if out == "" {
 		out = filepath.Join(dir, "report")

@@ -13,6 +13,7 @@ const (
 	FlagNoRequired        Flag = "no-required"
 	FlagNoReadings        Flag = "no-readings"
 	FlagNotMeasuredLatest Flag = "not-remeasured"
+	FlagOutOfScope        Flag = "out-of-scope"
 	FlagNoMeasurableLoss  Flag = "no-measurable-loss"
 	FlagAboveNominal      Flag = "above-nominal"
 	FlagEstimate          Flag = "estimate"
@@ -21,7 +22,7 @@ const (
 
 // AllFlags lists every flag in the order the methods appendix explains them.
 var AllFlags = []Flag{FlagBelowRequired, FlagThicknessIncrease, FlagSingleVisit, FlagNominalBased, FlagNoRate, FlagNoRequired,
-	FlagNoReadings, FlagNotMeasuredLatest, FlagNoMeasurableLoss, FlagAboveNominal, FlagEstimate, FlagFitNeedsThree}
+	FlagNoReadings, FlagNotMeasuredLatest, FlagOutOfScope, FlagNoMeasurableLoss, FlagAboveNominal, FlagEstimate, FlagFitNeedsThree}
 
 var flagMeanings = map[Flag]string{
 	FlagBelowRequired:     "the current thickness is at or below the required thickness; remaining life 0.",
@@ -32,6 +33,7 @@ var flagMeanings = map[Flag]string{
 	FlagNoRequired:        "the component has no required thickness, so no remaining life.",
 	FlagNoReadings:        "the CML row holds no readings.",
 	FlagNotMeasuredLatest: "the CML was not measured at the survey's latest visit; its results date from an earlier one.",
+	FlagOutOfScope:        "the survey's scope left the CML's asset or component out of its latest visit; its results date from an earlier one.",
 	FlagNoMeasurableLoss:  "the loss over the interval is within the gauge tolerance: no measurable loss, no retirement date.",
 	FlagAboveNominal:      "a reading is more than the gauge tolerance above nominal: suspect (coating, calibration, location).",
 	FlagEstimate:          "the rate is a single-visit estimate (nominal-based, assumed or ISO 9224), not a measured rate.",

@@ -18,6 +18,7 @@ type Input struct {
 	RequiredMM  *float64
 	Installed   *time.Time
 	LatestVisit time.Time // the newest visit of the whole survey
+	OutOfScope  bool      // the survey's scope leaves the CML out of its latest visit
 
 	RateModel         RateModel     // "" for the policy's
 	Rule              *IntervalRule // nil for the policy's
@@ -109,7 +110,11 @@ func Assess(in Input, p Policy) Result {
 	r.ThicknessMM = ptr(cur.ThicknessMM)
 	r.CurrentDate = ptr(cur.Date)
 	if cur.Date.Before(in.LatestVisit) {
-		r.flag(FlagNotMeasuredLatest)
+		if in.OutOfScope {
+			r.flag(FlagOutOfScope)
+		} else {
+			r.flag(FlagNotMeasuredLatest)
+		}
 	}
 	if in.NominalMM != nil {
 		for _, rd := range in.Readings {
@@ -282,6 +287,12 @@ func (r *Result) flag(f Flag) {
 		}
 	}
 	r.Flags = append(r.Flags, f)
+}
+
+// FromEarlierVisit reports whether the result's current thickness dates from
+// before the survey's latest visit (not re-measured, or out of its scope).
+func (r Result) FromEarlierVisit() bool {
+	return r.HasFlag(FlagNotMeasuredLatest) || r.HasFlag(FlagOutOfScope)
 }
 
 // HasFlag reports whether the result carries flag f.

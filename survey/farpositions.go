@@ -1,0 +1,104 @@
+package survey
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+)
+
+// farPositions warns of CMLs whose gps position lies far from the median
+// position of the asset's other CMLs (see gpsFarM), saying which slip —
+// a changed sign, latitude and longitude swapped — would bring it near.
+func farPositions(a *Asset) ProblemList {
+	var placed []*CML
+	for _, c := range a.Components {
+		for _, m := range c.CMLs {
+			if m.GPS != nil {
+				placed = append(placed, m)
+			}
+		}
+	}
+	var problems ProblemList
+	for _, m := range placed {
+		var others []LatLon
+		for _, o := range placed {
+			if o != m {
+				others = append(others, *o.GPS)
+			}
+		}
+		if len(others) < gpsMinOthers {
+			continue
+		}
+		center := medianPosition(others)
+		spread := make([]float64, len(others))
+		for i, o := range others {
+			spread[i] = DistanceM(o, center)
+		}
+		limit := max(gpsFarM, gpsSpreadFactor*median(spread))
+		d := DistanceM(*m.GPS, center)
+		if d <= limit {
+			continue
+		}
+		var hint string
+		best := math.Inf(1)
+		for _, v := range positionSlips(*m.GPS) {
+			if dv := DistanceM(v.p, center); dv <= limit && dv < best {
+				best = dv
+				hint = fmt.Sprintf("; with %s (%s) it would be %s from them", v.what, positionText(v.p), distanceText(dv))
+			}
+		}
+		problems.Warnf(m.File, m.Line, "CML %s: gps %s is %s from the other CMLs of %q%s",
+			m.ID, positionText(*m.GPS), distanceText(d), a.Name, hint)
+	}
+	return problems
+}
+
+// positionSlip is a position as it would read had a typing slip not happened.
+type positionSlip struct {
+	what string
+	p    LatLon
+}
+
+// positionSlips lists the positions p stands for under each slip: a sign
+// changed, both signs changed, latitude and longitude swapped (with or
+// without a sign changed). Swaps that give no valid latitude are left out.
+func positionSlips(p LatLon) []positionSlip {
+	out := []positionSlip{
+		{"the longitude's sign changed", LatLon{p.Lat, -p.Lon}},
+		{"the latitude's sign changed", LatLon{-p.Lat, p.Lon}},
+		{"both signs changed", LatLon{-p.Lat, -p.Lon}},
+	}
+	if math.Abs(p.Lon) <= 90 {
+		out = append(out,
+			positionSlip{"latitude and longitude swapped", LatLon{p.Lon, p.Lat}},
+			positionSlip{"latitude and longitude swapped and the longitude's sign changed", LatLon{p.Lon, -p.Lat}},
+			positionSlip{"latitude and longitude swapped and the latitude's sign changed", LatLon{-p.Lon, p.Lat}},
+			positionSlip{"latitude and longitude swapped and both signs changed", LatLon{-p.Lon, -p.Lat}},
+		)
+	}
+	return out
+}
+
+// medianPosition is the median latitude and the median longitude (fine over
+// a site, not across the antimeridian).
+func medianPosition(ps []LatLon) LatLon {
+	lat, lon := make([]float64, len(ps)), make([]float64, len(ps))
+	for i, p := range ps {
+		lat[i], lon[i] = p.Lat, p.Lon
+	}
+	return LatLon{median(lat), median(lon)}
+}
+
+func positionText(p LatLon) string {
+	return strconv.FormatFloat(p.Lat, 'f', -1, 64) + ", " + strconv.FormatFloat(p.Lon, 'f', -1, 64)
+}
+
+func distanceText(m float64) string {
+	switch {
+	case m < 1000:
+		return fmt.Sprintf("%.0f m", m)
+	case m < 10000:
+		return fmt.Sprintf("%.1f km", m/1000)
+	}
+	return fmt.Sprintf("%.0f km", m/1000)
+}
