@@ -87,7 +87,6 @@ type MethodInput struct {
 	Line  int
 }
 
-
 // CML is a condition monitoring location: one row of a reading table.
 type CML struct {
 	ID        string
@@ -96,6 +95,7 @@ type CML struct {
 	GPS       *LatLon
 	PhotoRefs []string // names relative to photos/, as written
 	Was       []string // ids this CML had in earlier surveys
+	Remarks   string   // the remarks cell, as written
 	Visits    []Visit  // oldest first; only visits with at least one reading
 }
 
