@@ -71,16 +71,18 @@ func (r *checklistReader) rowSource(row ast.Node) []byte {
 	return r.src[start:end]
 }
 
-// splitRow splits a table row into its cells as the GFM table extension of
-// goldmark does: one leading and one trailing pipe are dropped, and a pipe
-// after a backslash does not end a cell.
+// splitRow splits a table row into the cells written, as the GFM table
+// extension of goldmark does: one leading and one trailing pipe are dropped,
+// and a pipe after a backslash does not end a cell. Unlike goldmark it keeps an
+// empty last cell written `||` at the end of the row (goldmark drops it, then
+// pads the row with an empty cell: the same value).
 func splitRow(line []byte) []string {
 	s := strings.TrimSpace(string(line))
 	pos, limit := 0, len(s)
 	if limit > 0 && s[0] == '|' {
 		pos++
 	}
-	if limit > 0 && s[limit-1] == '|' {
+	if limit > pos && s[limit-1] == '|' {
 		limit--
 	}
 	var cells []string
@@ -92,6 +94,9 @@ func splitRow(line []byte) []string {
 			}
 		}
 		cells = append(cells, strings.TrimSpace(s[pos:end]))
+		if end == limit-1 {
+			cells = append(cells, "") // `||` closing the row
+		}
 		pos = end + 1
 	}
 	return cells
