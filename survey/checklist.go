@@ -210,7 +210,15 @@ func (r *checklistReader) block(n ast.Node) {
 		for c := n.FirstChild(); c != nil; c = c.NextSibling() {
 			r.block(c)
 		}
-	case *ast.FencedCodeBlock, *ast.CodeBlock, *ast.HTMLBlock:
+	case *ast.CodeBlock:
+		if n.Lines().Len() > 0 {
+			if first := n.Lines().At(0); strings.HasPrefix(strings.TrimSpace(string(first.Value(r.src))), "|") {
+				r.problems.Errorf(r.file, r.lineOf(n), "these | rows are indented by four spaces or a tab, which makes them a code block, not a table: start them at the margin")
+				return
+			}
+		}
+		r.note(Note{Markdown: "`" + strings.TrimSpace(r.inlineSource(n)) + "`", Line: r.lineOf(n)})
+	case *ast.FencedCodeBlock, *ast.HTMLBlock:
 		r.note(Note{Markdown: "`" + strings.TrimSpace(r.inlineSource(n)) + "`", Line: r.lineOf(n)})
 	}
 }

@@ -25,6 +25,10 @@ func TestFieldMistakesAreErrors(t *testing.T) {
 			"survey.md:8: these | rows are not a table"},
 		{"rows after a blank line", "| CML | 2025-06-01 |\n|---|---|\n| A | 12.5 |\n\n| B | 12.4 |\n",
 			"survey.md:12: these | rows are not part of the table above: a blank line ends a table"},
+		{"indented table", "Text.\n\n    | CML | 2025-06-01 |\n    |---|---|\n    | A | 12.5 |\n",
+			"survey.md:10: these | rows are indented by four spaces or a tab, which makes them a code block"},
+		{"row cut short in a blockquote", "> | CML | location | 2025-06-01 |\n> |---|---|---|\n> | A | 12.5 |\n",
+			"survey.md:10: row has 2 cells, the header has 3"},
 		// Headers that were meant as dates.
 		{"month 60", "| CML | 2025-60-03 |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "2025-60-03" is not a visit date: month 60`},
 		{"June 31", "| CML | 2025-06-31 |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "2025-06-31" is not a visit date: June has 30 days`},
