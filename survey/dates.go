@@ -39,11 +39,23 @@ const minVisitYear = 1900
 // looksLikeDate matches what was meant as a date: digits joined by -, / or .
 var looksLikeDate = regexp.MustCompile(`^\d+([-/.]\d+)+$|^(19|20)\d\d$`)
 
+// dateInside finds a date among other words of a header.
+var dateInside = regexp.MustCompile(`\b\d{4}[-/.]\d{1,2}([-/.]\d{1,2})?\b|\b\d{1,2}[-/.]\d{1,2}[-/.]\d{4}\b`)
+
 // visitDateMistake says why s, which looks like an attempt at a date, is not
 // a valid one; "" when s is a valid date or does not look like one.
 func visitDateMistake(s string) string {
 	s = strings.TrimSpace(s)
-	if _, ok := ParseVisitDate(s); ok || !looksLikeDate.MatchString(s) {
+	if _, ok := ParseVisitDate(s); ok {
+		return ""
+	}
+	if !looksLikeDate.MatchString(s) {
+		if m := dateInside.FindString(s); m != "" {
+			if why := visitDateMistake(m); why != "" {
+				return why
+			}
+			return fmt.Sprintf("write the date alone (%s) and anything else in a note", m)
+		}
 		return ""
 	}
 	parts := strings.FieldsFunc(s, func(r rune) bool { return r == '-' || r == '/' || r == '.' })

@@ -39,6 +39,8 @@ func TestFieldMistakesAreErrors(t *testing.T) {
 		{"day first", "| CML | 03.06.2025 |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "03.06.2025" is not a visit date: write the date as YYYY-MM-DD`},
 		{"two-digit year", "| CML | 25-06-03 |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "25-06-03" is not a visit date: the year 25 needs four digits`},
 		{"year alone", "| CML | 2024 |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "2024" is not a visit date: a year alone`},
+		{"date with a word", "| CML | 2025-06-01 (UT) |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "2025-06-01 (UT)" is not a visit date: write the date alone (2025-06-01) and anything else in a note`},
+		{"word with a bad date", "| CML | visit 2025-06-31 |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "visit 2025-06-31" is not a visit date: June has 30 days`},
 		{"year 1025", "| CML | 1025-06-03 |\n|---|---|\n| A | 12.5 |\n", "survey.md:8: visit column 1025-06-03: year 1025 is before 1900"},
 		{"second gps column", "| CML | gps | GPS | 2025-06-01 |\n|---|---|---|---|\n| A | 45, 3 | 46, 3 | 12.5 |\n", `survey.md:8: column "GPS" appears twice`},
 		// Design keys.
