@@ -119,7 +119,11 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 	if !ok {
 		r.problems.Errorf(r.file, line, "front matter has no date (this visit, e.g. 2026-11-30)")
 	} else if t, err := parseFrontMatterDate(date); err != nil {
-		r.problems.Errorf(r.file, line, "date %q is not an ISO 8601 date such as 2026-11-30", date)
+		if why := visitDateMistake(date); why != "" {
+			r.problems.Errorf(r.file, line, "date %q is not an ISO 8601 date: %s", date, why)
+		} else {
+			r.problems.Errorf(r.file, line, "date %q is not an ISO 8601 date such as 2026-11-30", date)
+		}
 	} else {
 		s.Date = t
 	}

@@ -29,7 +29,8 @@ func TestFieldMistakesAreErrors(t *testing.T) {
 			"survey.md:10: these | rows are indented by four spaces or a tab, which makes them a code block"},
 		{"row cut short in a blockquote", "> | CML | location | 2025-06-01 |\n> |---|---|---|\n> | A | 12.5 |\n",
 			"survey.md:10: row has 2 cells, the header has 3"},
-		// Headers that were meant as dates.
+		// Dates.
+		{"front matter date June 31", "", `survey.md:3: date "2025-06-31" is not an ISO 8601 date: June has 30 days`},
 		{"month 60", "| CML | 2025-60-03 |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "2025-60-03" is not a visit date: month 60`},
 		{"June 31", "| CML | 2025-06-31 |\n|---|---|\n| A | 12.5 |\n", `survey.md:8: column "2025-06-31" is not a visit date: June has 30 days`},
 		{"February 29 of a common year", "| CML | 2025-02-29 |\n|---|---|\n| A | 12.5 |\n", "survey.md:8: column \"2025-02-29\" is not a visit date: February 2025 has 28 days"},
@@ -79,7 +80,11 @@ func TestFieldMistakesAreErrors(t *testing.T) {
 		{"gps NaN", "| CML | gps | 2025-06-01 |\n|---|---|---|\n| A | NaN, 3 | 12.5 |\n", `survey.md:10: gps "NaN, 3" is not a position: latitude "NaN" is not a number`},
 		{"gps decimal commas", "| CML | gps | 2025-06-01 |\n|---|---|---|\n| A | 45,6 -61,3 | 12.5 |\n", "survey.md:10: gps \"45,6 -61,3\" is not `latitude, longitude` in decimal degrees (decimals take a point"},
 	} {
-		_, problems := readChecklist("survey.md", []byte(mistakeHead+c.body))
+		src := mistakeHead + c.body
+		if c.body == "" {
+			src = strings.Replace(mistakeHead, "2025-07-01", "2025-06-31", 1)
+		}
+		_, problems := readChecklist("survey.md", []byte(src))
 		wantError(t, c.name, problems, c.want)
 	}
 }
