@@ -40,10 +40,11 @@ type checklistReader struct {
 	cmlLines map[string]int // CML id -> line of first use
 }
 
-// ParseChecklist reads a survey.md. It returns the survey and every problem
-// found, in the order found; when the list holds an error the survey is
-// incomplete. It computes
-// nothing: a `required:` method is recorded with its inputs for ComputeRequired.
+// ParseChecklist reads a survey.md, in UTF-8 (with or without a byte-order
+// mark) or UTF-16 with a byte-order mark. It returns the survey and every
+// problem found, in the order found; when the list holds an error the survey
+// is incomplete. It computes nothing: a `required:` method is recorded with
+// its inputs for ComputeRequired.
 func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	r := &checklistReader{
 		file:     file,
@@ -59,9 +60,8 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	}
 	r.src = r.placeholders(src)
 	r.lines = newLineIndex(r.src)
-	src = r.src
 	ctx := parser.NewContext()
-	doc := markdown.Parser().Parse(text.NewReader(src), parser.WithContext(ctx))
+	doc := markdown.Parser().Parse(text.NewReader(r.src), parser.WithContext(ctx))
 	r.frontMatter(ctx)
 	for n := doc.FirstChild(); n != nil; n = n.NextSibling() {
 		r.block(n)
