@@ -178,9 +178,23 @@ func (d *doc) readings(c *survey.Component) {
 			break
 		}
 	}
+	d.remarks(c)
 	d.font("I", smallSize)
 	d.pdf.MultiCell(0, 3.8, "Where a visit holds several readings the governing (minimum) reading is shown first and all readings follow in brackets. — means not measured.", "", "L", false)
 	d.font("", bodySize)
+}
+
+// remarks writes the remarks column of the reading table, when it has any.
+func (d *doc) remarks(c *survey.Component) {
+	var rows [][]string
+	for _, m := range c.CMLs {
+		if m.Remarks != "" {
+			rows = append(rows, []string{m.ID, stripInline(m.Remarks)})
+		}
+	}
+	if len(rows) > 0 {
+		d.table([]column{{"CML", 16, "L"}, {"Remarks", d.width() - 16, "L"}}, rows, nil, smallSize)
+	}
 }
 
 func (d *doc) visitCell(m *survey.CML, dt survey.VisitDate) string {

@@ -19,6 +19,7 @@ import (
 	"github.com/yuin/goldmark/parser"
 	"github.com/yuin/goldmark/text"
 
+	"github.com/lossline/lossline/survey/number"
 	"github.com/lossline/lossline/survey/required"
 	"github.com/lossline/lossline/survey/wallloss"
 )
@@ -39,20 +40,28 @@ type checklistReader struct {
 	cmlLines map[string]int // CML id -> line of first use
 }
 
-// ParseChecklist reads a survey.md. It returns the survey and every problem
-// found, in the order found; when the list holds an error the survey is
-// incomplete. It computes
-// nothing: a `required:` method is recorded with its inputs for ComputeRequired.
+// ParseChecklist reads a survey.md, in UTF-8 (with or without a byte-order
+// mark) or UTF-16 with a byte-order mark. It returns the survey and every
+// problem found, in the order found; when the list holds an error the survey
+// is incomplete. It computes nothing: a `required:` method is recorded with
+// its inputs for ComputeRequired.
 func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	r := &checklistReader{
 		file:     file,
-		src:      src,
-		lines:    newLineIndex(src),
 		survey:   &Survey{File: file, Units: MM},
 		cmlLines: map[string]int{},
 	}
+	src, line, problem := decodeText(src)
+	if problem != "" {
+		r.problems.Errorf(file, line, "%s", problem)
+		if src == nil {
+			return r.survey, r.problems
+		}
+	}
+	r.src = r.placeholders(src)
+	r.lines = newLineIndex(r.src)
 	ctx := parser.NewContext()
-	doc := markdown.Parser().Parse(text.NewReader(src), parser.WithContext(ctx))
+	doc := markdown.Parser().Parse(text.NewReader(r.src), parser.WithContext(ctx))
 	r.frontMatter(ctx)
 	for n := doc.FirstChild(); n != nil; n = n.NextSibling() {
 		r.block(n)
@@ -73,7 +82,7 @@ var frontMatterKeys = []string{"title", "site", "date", "inspector", "units", "p
 
 func (r *checklistReader) frontMatter(ctx parser.Context) {
 	s := r.survey
-	if !bytes.HasPrefix(bytes.TrimPrefix(r.src, []byte("\xef\xbb\xbf")), []byte("---")) {
+	if !bytes.HasPrefix(r.src, []byte("---")) {
 		r.problems.Errorf(r.file, 1, "no front matter: the checklist must open with a line `---`, then title, site, date, inspector and units, then `---`")
 		return
 	}
@@ -110,7 +119,11 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 	if !ok {
 		r.problems.Errorf(r.file, line, "front matter has no date (this visit, e.g. 2026-11-30)")
 	} else if t, err := parseFrontMatterDate(date); err != nil {
-		r.problems.Errorf(r.file, line, "date %q is not an ISO 8601 date such as 2026-11-30", date)
+		if why := visitDateMistake(date); why != "" {
+			r.problems.Errorf(r.file, line, "date %q is not an ISO 8601 date: %s", date, why)
+		} else {
+			r.problems.Errorf(r.file, line, "date %q is not an ISO 8601 date such as 2026-11-30", date)
+		}
 	} else {
 		s.Date = t
 	}
@@ -194,14 +207,46 @@ func (r *checklistReader) block(n ast.Node) {
 	case *east.Table:
 		r.table(n)
 	case *ast.Paragraph:
+		if r.pipeRows(n) {
+			return
+		}
 		r.note(Note{Markdown: r.inlineSource(n), Line: r.lineOf(n)})
 	case *ast.Blockquote:
 		for c := n.FirstChild(); c != nil; c = c.NextSibling() {
 			r.block(c)
 		}
-	case *ast.FencedCodeBlock, *ast.CodeBlock, *ast.HTMLBlock:
+	case *ast.CodeBlock:
+		if n.Lines().Len() > 0 {
+			if first := n.Lines().At(0); strings.HasPrefix(strings.TrimSpace(string(first.Value(r.src))), "|") {
+				r.problems.Errorf(r.file, r.lineOf(n), "these | rows are indented by four spaces or a tab, which makes them a code block, not a table: start them at the margin")
+				return
+			}
+		}
+		r.note(Note{Markdown: "`" + strings.TrimSpace(r.inlineSource(n)) + "`", Line: r.lineOf(n)})
+	case *ast.FencedCodeBlock, *ast.HTMLBlock:
 		r.note(Note{Markdown: "`" + strings.TrimSpace(r.inlineSource(n)) + "`", Line: r.lineOf(n)})
 	}
+}
+
+// pipeRows reports a paragraph that opens with a `|` line: rows that did not
+// become a table, so their CMLs would be lost as a note.
+func (r *checklistReader) pipeRows(p *ast.Paragraph) bool {
+	if p.Lines().Len() == 0 {
+		return false
+	}
+	first := p.Lines().At(0)
+	if !strings.HasPrefix(strings.TrimSpace(string(first.Value(r.src))), "|") {
+		return false
+	}
+	line := r.lineOf(p)
+	cells := splitRow(first.Value(r.src))
+	header := len(cells) > 0 && strings.EqualFold(cells[0], "cml")
+	if _, after := p.PreviousSibling().(*east.Table); after && !header {
+		r.problems.Errorf(r.file, line, "these | rows are not part of the table above: a blank line ends a table")
+	} else {
+		r.problems.Errorf(r.file, line, "these | rows are not a table: under the header row write a separator row with one cell per column, such as |---|---|")
+	}
+	return true
 }
 
 func (r *checklistReader) heading(h *ast.Heading) {
@@ -290,9 +335,13 @@ func (r *checklistReader) listText(block ast.Node) {
 	}
 	if r.comp != nil {
 		if m := designItem.FindStringSubmatch(src); m != nil {
-			key := strings.ToLower(m[1])
+			key := strings.ToLower(strings.Join(strings.Fields(m[1]), " "))
 			if _, known := designKeys[key]; known {
 				r.design(key, m[2], line)
+				return
+			}
+			if near := nearDesignKey(key); near != "" {
+				r.problems.Errorf(r.file, line, "unknown design key `%s`: did you mean `%s`? (to keep the line as a note, write it without the colon)", strings.TrimSpace(m[1]), near)
 				return
 			}
 		}
@@ -342,18 +391,19 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 	"nominal": func(d *Design, value string, units Unit) error {
 		v, err := ParseThickness(value, units)
 		if err != nil {
-			return fmt.Errorf("nominal: %q is not a thickness (a number, optionally followed by mm or in)", value)
+			return thicknessError("nominal", value, err, "")
 		}
 		d.NominalMM = &v
 		return nil
 	},
 	"required": func(d *Design, value string, units Unit) error {
-		if v, err := ParseThickness(value, units); err == nil {
+		v, err := ParseThickness(value, units)
+		if err == nil {
 			d.RequiredMM = &v
 			return nil
 		}
-		if first := strings.TrimSpace(value); first == "" || (first[0] >= '0' && first[0] <= '9') {
-			return fmt.Errorf("required: %q is not a thickness (a number, optionally followed by mm or in) or a method (%s)", value, strings.Join(required.Methods, ", "))
+		if first, _, _ := strings.Cut(strings.TrimSpace(value), " "); first == "" || strings.ContainsAny(first, "0123456789") {
+			return thicknessError("required", value, err, " or a method ("+strings.Join(required.Methods, ", ")+")")
 		}
 		d.RequiredMethod = value
 		return nil
@@ -361,7 +411,13 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 	"installed": func(d *Design, value string, _ Unit) error {
 		dt, ok := ParseVisitDate(value)
 		if !ok {
+			if why := visitDateMistake(value); why != "" {
+				return fmt.Errorf("installed: %q is not a date: %s", value, why)
+			}
 			return fmt.Errorf("installed: %q is not a date such as 2009-06-30 or 2009-06", value)
+		}
+		if y := dt.Time.Year(); y < minVisitYear {
+			return fmt.Errorf("installed: year %d is before %d", y, minVisitYear)
 		}
 		d.Installed = &dt
 		return nil
@@ -434,11 +490,21 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 	"repair thickness": func(d *Design, value string, units Unit) error {
 		v, err := ParseThickness(value, units)
 		if err != nil {
-			return fmt.Errorf("repair thickness: %q is not a thickness", value)
+			return thicknessError("repair thickness", value, err, "")
 		}
 		d.RepairThicknessMM = &v
 		return nil
 	},
+}
+
+// thicknessError explains why the value of a design key is not a thickness:
+// the reason the number reader gives, or what a thickness looks like (and
+// what else the key takes, in alternatives).
+func thicknessError(key, value string, err error, alternatives string) error {
+	if ne := (*number.Error)(nil); !errors.As(err, &ne) || ne.Why != "" {
+		return fmt.Errorf("%s: %v", key, err)
+	}
+	return fmt.Errorf("%s: %q is not a thickness (a number, optionally followed by mm or in)%s", key, value, alternatives)
 }
 
 // ParseConsequence reads very low, low, medium, high or very high.

@@ -108,6 +108,7 @@ type CML struct {
 	GPS       *LatLon
 	PhotoRefs []string // names relative to photos/, as written
 	Was       []string // ids this CML had in earlier surveys
+	Remarks   string   // the remarks cell, as written
 	Visits    []Visit  // oldest first; only visits with at least one reading
 }
 

@@ -1,12 +1,15 @@
 package survey
 
 import (
+	"fmt"
+	"slices"
 	"sort"
-	"strconv"
 	"strings"
 
 	"github.com/yuin/goldmark/ast"
 	east "github.com/yuin/goldmark/extension/ast"
+
+	"github.com/lossline/lossline/survey/number"
 )
 
 // column roles in a reading table.
@@ -18,7 +21,14 @@ const (
 	colGPS
 	colPhotos
 	colWas
+	colRemarks
 )
+
+// columnNames maps the header of each optional column to its role.
+var columnNames = map[string]int{
+	"location": colLocation, "gps": colGPS, "photos": colPhotos, "photo": colPhotos, "was": colWas,
+	"remarks": colRemarks, "remark": colRemarks, "notes": colRemarks, "note": colRemarks,
+}
 
 type tableColumn struct {
 	role int
@@ -40,8 +50,63 @@ func (r *checklistReader) table(t *east.Table) {
 		return
 	}
 	for row := header.NextSibling(); row != nil; row = row.NextSibling() {
-		r.row(row, cols)
+		line := r.lineOf(row)
+		if n := len(splitRow(r.rowSource(row))); n != len(cols) {
+			r.problems.Errorf(r.file, line, "row has %d %s, the header has %d: write one cell per column (- for a reading not taken)",
+				n, plural(n, "cell", "cells"), len(cols))
+			continue
+		}
+		r.row(row, line, cols)
 	}
+}
+
+// rowSource returns the source text of a table row: goldmark pads short rows
+// and cuts long ones, so their shape is checked on the text as written.
+func (r *checklistReader) rowSource(row ast.Node) []byte {
+	start := min(max(row.Pos(), 0), len(r.src))
+	end := len(r.src)
+	if i := strings.IndexByte(string(r.src[start:]), '\n'); i >= 0 {
+		end = start + i
+	}
+	return r.src[start:end]
+}
+
+// splitRow splits a table row into the cells written, as the GFM table
+// extension of goldmark does: one leading and one trailing pipe are dropped,
+// and a pipe after a backslash does not end a cell. Unlike goldmark it keeps an
+// empty last cell written `||` at the end of the row (goldmark drops it, then
+// pads the row with an empty cell: the same value).
+func splitRow(line []byte) []string {
+	s := strings.TrimSpace(string(line))
+	pos, limit := 0, len(s)
+	if limit > 0 && s[0] == '|' {
+		pos++
+	}
+	if limit > pos && s[limit-1] == '|' {
+		limit--
+	}
+	var cells []string
+	for pos < limit {
+		end := pos
+		for ; end < limit; end++ {
+			if s[end] == '|' && (end == 0 || s[end-1] != '\\') {
+				break
+			}
+		}
+		cells = append(cells, strings.TrimSpace(s[pos:end]))
+		if end == limit-1 {
+			cells = append(cells, "") // `||` closing the row
+		}
+		pos = end + 1
+	}
+	return cells
+}
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
 }
 
 func (r *checklistReader) cellText(cell ast.Node) string {
@@ -56,6 +121,7 @@ func (r *checklistReader) columns(header ast.Node, line int) []tableColumn {
 		name := r.cellText(cell)
 		lower := strings.ToLower(name)
 		col := tableColumn{}
+		role, named := columnNames[lower]
 		switch {
 		case len(cols) == 0:
 			if lower != "cml" {
@@ -63,18 +129,20 @@ func (r *checklistReader) columns(header ast.Node, line int) []tableColumn {
 				return nil
 			}
 			col.role = colCML
-		case lower == "location":
-			col.role = colLocation
-		case lower == "gps":
-			col.role = colGPS
-		case lower == "photos" || lower == "photo":
-			col.role = colPhotos
-		case lower == "was":
-			col.role = colWas
+		case named:
+			if slices.ContainsFunc(cols, func(c tableColumn) bool { return c.role == role }) {
+				r.problems.Errorf(r.file, line, "column %q appears twice", name)
+				break
+			}
+			col.role = role
 		default:
 			d, ok := ParseVisitDate(name)
 			if !ok {
-				r.problems.Warnf(r.file, line, "column %q is not a date, location, gps, photos or was: ignored", name)
+				if why := visitDateMistake(name); why != "" {
+					r.problems.Errorf(r.file, line, "column %q is not a visit date: %s", name, why)
+				} else {
+					r.problems.Warnf(r.file, line, "column %q is not a date, location, gps, photos, was or remarks: ignored", name)
+				}
 				break
 			}
 			if seen[d.String()] {
@@ -82,6 +150,10 @@ func (r *checklistReader) columns(header ast.Node, line int) []tableColumn {
 				break
 			}
 			seen[d.String()] = true
+			if y := d.Time.Year(); y < minVisitYear {
+				r.problems.Errorf(r.file, line, "visit column %s: year %d is before %d", d, y, minVisitYear)
+				break
+			}
 			if !r.survey.Date.IsZero() && d.After(r.survey.LastDay()) {
 				r.problems.Errorf(r.file, line, "visit column %s is later than %s", d, r.survey.dayLimit())
 				break
@@ -104,8 +176,10 @@ func (r *checklistReader) addVisitDate(d VisitDate) {
 	sort.Slice(r.comp.VisitDates, func(i, j int) bool { return r.comp.VisitDates[i].Time.Before(r.comp.VisitDates[j].Time) })
 }
 
-func (r *checklistReader) row(row ast.Node, cols []tableColumn) {
-	line := r.lineOf(row)
+// noAccess are words written in a reading cell for a reading not taken.
+var noAccess = []string{"los", "n/a", "na", "n.a.", "none", "no access", "noaccess", "not accessible", "nr", "not read", "x"}
+
+func (r *checklistReader) row(row ast.Node, line int, cols []tableColumn) {
 	cml := &CML{File: r.file, Line: line}
 	i := 0
 	for cell := row.FirstChild(); cell != nil && i < len(cols); cell, i = cell.NextSibling(), i+1 {
@@ -115,13 +189,15 @@ func (r *checklistReader) row(row ast.Node, cols []tableColumn) {
 			cml.ID = v
 		case colLocation:
 			cml.Location = v
+		case colRemarks:
+			cml.Remarks = v
 		case colGPS:
 			if v == "" || v == "-" {
 				break
 			}
-			p, ok := parseLatLon(v)
-			if !ok {
-				r.problems.Errorf(r.file, line, "gps %q is not `latitude, longitude` in decimal degrees", v)
+			p, err := parseLatLon(v)
+			if err != nil {
+				r.problems.Errorf(r.file, line, "gps %q %v", v, err)
 				break
 			}
 			cml.GPS = &p
@@ -133,9 +209,13 @@ func (r *checklistReader) row(row ast.Node, cols []tableColumn) {
 			if v == "" || v == "-" || v == "—" || v == "–" {
 				break
 			}
+			if slices.Contains(noAccess, strings.ToLower(strings.Join(strings.Fields(v), " "))) {
+				r.problems.Errorf(r.file, line, "reading %q on %s: write - for a reading not taken and say why in a note", v, cols[i].date)
+				break
+			}
 			vals, err := ParseThicknesses(v, r.survey.Units)
 			if err != nil {
-				r.problems.Errorf(r.file, line, "%s", err)
+				r.problems.Errorf(r.file, line, "reading %v", err)
 				break
 			}
 			cml.Visits = append(cml.Visits, Visit{Date: cols[i].date, ReadingsMM: vals, File: r.file, Line: line})
@@ -154,17 +234,32 @@ func (r *checklistReader) row(row ast.Node, cols []tableColumn) {
 	r.comp.CMLs = append(r.comp.CMLs, cml)
 }
 
-func parseLatLon(s string) (LatLon, bool) {
+// parseLatLon reads `latitude, longitude` in decimal degrees; its error
+// completes the sentence `gps "…" …`.
+func parseLatLon(s string) (LatLon, error) {
 	parts := strings.FieldsFunc(s, func(c rune) bool { return c == ',' || c == ' ' || c == ';' })
 	if len(parts) != 2 {
-		return LatLon{}, false
+		why := "is not `latitude, longitude` in decimal degrees"
+		if len(parts) == 4 && strings.Count(s, ",") >= 2 {
+			why += " (decimals take a point: 45.60238, -61.35078)"
+		}
+		return LatLon{}, fmt.Errorf("%s", why)
 	}
-	lat, err1 := strconv.ParseFloat(parts[0], 64)
-	lon, err2 := strconv.ParseFloat(parts[1], 64)
-	if err1 != nil || err2 != nil || lat < -90 || lat > 90 || lon < -180 || lon > 180 {
-		return LatLon{}, false
+	lat, err := number.Parse(parts[0])
+	if err != nil {
+		return LatLon{}, fmt.Errorf("is not a position: latitude %v", err)
 	}
-	return LatLon{Lat: lat, Lon: lon}, true
+	lon, err := number.Parse(parts[1])
+	if err != nil {
+		return LatLon{}, fmt.Errorf("is not a position: longitude %v", err)
+	}
+	if lat < -90 || lat > 90 {
+		return LatLon{}, fmt.Errorf("is not a position: latitude %s is beyond ±90°", parts[0])
+	}
+	if lon < -180 || lon > 180 {
+		return LatLon{}, fmt.Errorf("is not a position: longitude %s is beyond ±180°", parts[1])
+	}
+	return LatLon{Lat: lat, Lon: lon}, nil
 }
 
 // finish checks what can only be checked once the whole checklist is read.

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"strconv"
 	"strings"
+
+	"github.com/lossline/lossline/survey/number"
 )
 
 // Unit is a length unit for wall thickness.
@@ -59,23 +61,33 @@ func (u Unit) Format(mm float64) string {
 	return strconv.FormatFloat(u.FromMM(mm), 'f', u.Decimals(), 64)
 }
 
+// MaxThicknessMM is the largest wall thickness read: a value above it is a
+// slip (a missing decimal point, a wrong unit), not a wall.
+const MaxThicknessMM = 1000
+
 // ParseThicknesses reads one or more thickness values separated by spaces,
 // each optionally followed by its unit ("8.9 9.0", "0.375 in", "9.1mm 9.0mm").
-// Bare numbers are in def. Results are in millimetres.
+// Bare numbers are in def. Results are in millimetres, each greater than zero
+// and at most MaxThicknessMM.
 func ParseThicknesses(s string, def Unit) ([]float64, error) {
 	fields := strings.Fields(s)
 	var out []float64
 	for i := 0; i < len(fields); i++ {
 		f := fields[i]
-		if strings.Contains(f, ",") {
-			return nil, fmt.Errorf("reading %q is not a number (decimals take a point; readings are separated by spaces)", f)
+		if whole, frac, ok := strings.Cut(f, ","); ok && (frac == "" || strings.ContainsAny(frac, ".,")) {
+			return nil, fmt.Errorf("%q: separate readings with spaces, not commas", f)
+		} else if ok && whole == "" {
+			return nil, fmt.Errorf("%q is not a number", f)
 		}
 		num, unit := splitUnit(f)
 		u := def
 		if unit != "" {
 			pu, ok := ParseUnit(unit)
 			if !ok {
-				return nil, fmt.Errorf("reading %q: unknown unit %q (use mm or in)", f, unit)
+				if _, err := number.Parse(f); err != nil && strings.Contains(err.Error(), "did you mean") {
+					return nil, err // a letter typed for a digit
+				}
+				return nil, fmt.Errorf("%q: unknown unit %q (use mm or in)", f, unit)
 			}
 			u = pu
 		} else if i+1 < len(fields) {
@@ -84,12 +96,15 @@ func ParseThicknesses(s string, def Unit) ([]float64, error) {
 				i++
 			}
 		}
-		v, err := strconv.ParseFloat(num, 64)
+		v, err := number.Parse(num)
 		if err != nil {
-			return nil, fmt.Errorf("reading %q is not a number", f)
+			return nil, err
 		}
 		if v <= 0 {
-			return nil, fmt.Errorf("reading %q must be greater than zero", f)
+			return nil, fmt.Errorf("%q must be greater than zero", f)
+		}
+		if u.ToMM(v) > MaxThicknessMM {
+			return nil, fmt.Errorf("%q is not a wall thickness: more than %.4g %s", f, u.FromMM(MaxThicknessMM), u)
 		}
 		out = append(out, u.ToMM(v))
 	}
@@ -108,60 +123,59 @@ func ParseThickness(s string, def Unit) (float64, error) {
 	return vs[0], nil
 }
 
-// splitUnit splits "9.1mm" into "9.1" and "mm".
+// splitUnit splits "9.1mm" into "9.1" and "mm": the unit is the run of
+// characters after the last digit or point.
 func splitUnit(f string) (num, unit string) {
-	i := strings.IndexFunc(f, func(r rune) bool {
-		return (r < '0' || r > '9') && r != '.' && r != '-' && r != '+' && r != 'e' && r != 'E'
-	})
-	if i <= 0 {
+	i := strings.LastIndexAny(f, "0123456789.")
+	if i < 0 || i == len(f)-1 {
 		return f, ""
 	}
-	return f[:i], f[i:]
+	return f[:i+1], f[i+1:]
 }
+
+// MaxRateMMPerY is the largest corrosion rate read; anything above it is a slip.
+const MaxRateMMPerY = 100
 
 // ParseRate reads a corrosion rate: "0.12 mm/y", "4.5 mpy" (mils per year,
 // 1 mil = 0.001 in), "0.004 in/y"; a bare number is in the survey's unit per
-// year. The result is in mm/y.
+// year. The result is in mm/y, from 0 to MaxRateMMPerY.
 func ParseRate(s string, def Unit) (float64, error) {
 	t := strings.ToLower(strings.ReplaceAll(s, " ", ""))
-	i := strings.IndexFunc(t, func(r rune) bool { return (r < '0' || r > '9') && r != '.' })
+	i := strings.IndexFunc(t, func(r rune) bool { return (r < '0' || r > '9') && r != '.' && r != ',' && r != '-' && r != '+' })
 	num, unit := t, ""
 	if i >= 0 {
 		num, unit = t[:i], t[i:]
 	}
-	v, err := strconv.ParseFloat(num, 64)
-	if err != nil || v < 0 {
+	if num == "" {
 		return 0, fmt.Errorf("%q is not a rate such as 0.12 mm/y or 4.5 mpy", s)
+	}
+	v, err := number.Parse(num)
+	if err != nil {
+		return 0, err
+	}
+	if v < 0 {
+		return 0, fmt.Errorf("%q: a corrosion rate is not negative", s)
 	}
 	switch unit {
 	case "":
-		return def.ToMM(v), nil
+		v = def.ToMM(v)
 	case "mm/y", "mm/yr", "mm/a", "mm/year":
-		return v, nil
 	case "in/y", "in/yr", "in/year":
-		return v * MMPerInch, nil
+		v *= MMPerInch
 	case "mpy", "mil/y", "mils/y", "mils/yr":
-		return v * MMPerInch / 1000, nil
+		v *= MMPerInch / 1000
 	case "µm/a", "um/y", "µm/y", "um/a":
-		return v / 1000, nil
+		v /= 1000
+	default:
+		return 0, fmt.Errorf("%q: unknown rate unit %q (use mm/y, in/y or mpy)", s, unit)
 	}
-	return 0, fmt.Errorf("%q: unknown rate unit %q (use mm/y, in/y or mpy)", s, unit)
+	if v > MaxRateMMPerY {
+		return 0, fmt.Errorf("%q is more than %d mm/y: not a corrosion rate", s, MaxRateMMPerY)
+	}
+	return v, nil
 }
 
 // ParseAmount reads a non-negative amount of money or a quantity: "12000",
 // "12 000", "12_000", "85.50"; a trailing currency word is ignored
-// ("12000 EUR").
-func ParseAmount(s string) (float64, error) {
-	f := strings.Fields(s)
-	if len(f) > 1 {
-		if _, err := strconv.ParseFloat(f[len(f)-1], 64); err != nil {
-			f = f[:len(f)-1] // a currency name
-		}
-	}
-	t := strings.ReplaceAll(strings.Join(f, ""), "_", "")
-	v, err := strconv.ParseFloat(t, 64)
-	if err != nil || v < 0 {
-		return 0, fmt.Errorf("%q is not an amount such as 12000", s)
-	}
-	return v, nil
-}
+// ("12000 EUR"). See number.ParseMoney.
+func ParseAmount(s string) (float64, error) { return number.ParseMoney(s) }

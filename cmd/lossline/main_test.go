@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -179,9 +180,31 @@ func TestNewNeverOverwrites(t *testing.T) {
 	if code, out, errOut := runCLI(t, "new", dir); code != exitOK {
 		t.Fatalf("new: %d %s %s", code, out, errOut)
 	}
-	// The scaffold is a valid survey: check finds no errors.
-	if code, out, _ := runCLI(t, "check", dir); code != exitOK {
-		t.Errorf("check of a new survey: exit %d\n%s", code, out)
+	// Left untouched, every placeholder line is an error; with the ⟨⟩ marks
+	// taken away the scaffold is a valid survey.
+	code, out, _ := runCLI(t, "check", dir)
+	if code != exitBadInput {
+		t.Errorf("check of an untouched new survey: exit %d\n%s", code, out)
+	}
+	src, _ := os.ReadFile(filepath.Join(dir, "survey.md"))
+	var want []string
+	for i, l := range strings.Split(string(src), "\n") {
+		if strings.Contains(l, "⟨") {
+			want = append(want, fmt.Sprintf("survey.md:%d: placeholder", i+1))
+		}
+	}
+	if len(want) < 10 || !strings.Contains(out, fmt.Sprintf("%d errors, 0 warnings", len(want))) {
+		t.Errorf("untouched survey: want %d placeholder errors and nothing else:\n%s", len(want), out)
+	}
+	for _, w := range want {
+		if !strings.Contains(out, w) {
+			t.Errorf("untouched survey: no %q in\n%s", w, out)
+		}
+	}
+	filled := strings.NewReplacer("⟨", "", "⟩", "").Replace(string(src))
+	os.WriteFile(filepath.Join(dir, "survey.md"), []byte(filled), 0o644)
+	if code, out, _ := runCLI(t, "check", dir); code != exitOK || strings.Contains(out, "⟨") {
+		t.Errorf("check of a filled-in new survey: exit %d\n%s", code, out)
 	}
 	os.WriteFile(filepath.Join(dir, "survey.md"), []byte("mine"), 0o644)
 	if code, _, errOut := runCLI(t, "new", dir); code != exitBadInput || !strings.Contains(errOut, "already exists") {

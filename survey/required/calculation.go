@@ -107,7 +107,9 @@ func (r *reader) optional(kind Kind, names ...string) (float64, bool) {
 		return 0, false
 	}
 	q, err := ParseQuantity(text)
-	if err == nil && q.Kind != kind {
+	if err != nil {
+		err = fmt.Errorf("%s: %w", name, err)
+	} else if q.Kind != kind {
 		err = fmt.Errorf("%s %q is not a %s", name, text, kind)
 	}
 	if err != nil {

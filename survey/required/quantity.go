@@ -2,8 +2,9 @@ package required
 
 import (
 	"fmt"
-	"strconv"
 	"strings"
+
+	"github.com/lossline/lossline/survey/number"
 )
 
 // Kind is the physical quantity a value measures.
@@ -53,15 +54,18 @@ func ParseQuantity(s string) (Quantity, error) {
 	q := Quantity{Text: strings.TrimSpace(s)}
 	t := strings.ReplaceAll(q.Text, " ", "")
 	i := strings.IndexFunc(t, func(r rune) bool {
-		return (r < '0' || r > '9') && r != '.' && r != '-' && r != '+'
+		return (r < '0' || r > '9') && r != '.' && r != ',' && r != '-' && r != '+'
 	})
 	num, unit := t, ""
 	if i >= 0 {
 		num, unit = t[:i], t[i:]
 	}
-	v, err := strconv.ParseFloat(num, 64)
-	if err != nil {
+	if strings.Trim(num, "+-.") == "" {
 		return q, fmt.Errorf("%q is not a number with a unit", s)
+	}
+	v, err := number.Parse(num)
+	if err != nil {
+		return q, err
 	}
 	u := strings.ToLower(unit)
 	switch u {

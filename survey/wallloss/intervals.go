@@ -3,8 +3,9 @@ package wallloss
 import (
 	"fmt"
 	"regexp"
-	"strconv"
 	"strings"
+
+	"github.com/lossline/lossline/survey/number"
 )
 
 // Interval rule kinds.
@@ -38,8 +39,8 @@ func ParseIntervalRule(s string) (IntervalRule, error) {
 	case t == "half life" || t == "half-life" || t == "":
 		return IntervalRule{Kind: RuleHalfLife}, nil
 	case rule570.MatchString(t):
-		c, _ := strconv.Atoi(rule570.FindStringSubmatch(t)[1])
-		return IntervalRule{Kind: RuleAPI570, Class: c}, nil
+		c, _ := number.Parse(rule570.FindStringSubmatch(t)[1]) // one digit, 1 to 4
+		return IntervalRule{Kind: RuleAPI570, Class: int(c)}, nil
 	case t == "api 510":
 		return IntervalRule{Kind: RuleAPI510}, nil
 	case t == "api 653 shell":
@@ -47,7 +48,7 @@ func ParseIntervalRule(s string) (IntervalRule, error) {
 	case t == "api 653 bottom":
 		return IntervalRule{Kind: RuleAPI653Floor}, nil
 	case ruleFixed.MatchString(t):
-		y, err := strconv.ParseFloat(ruleFixed.FindStringSubmatch(t)[1], 64)
+		y, err := number.Parse(ruleFixed.FindStringSubmatch(t)[1])
 		if err == nil && y > 0 && y <= 50 {
 			return IntervalRule{Kind: RuleFixed, Years: y}, nil
 		}
