@@ -19,6 +19,7 @@ type photoResult struct {
 	prep   preparedPhoto
 	err    error
 	cached bool
+	panic  any // what the reduction panicked with, if it did
 }
 
 // preparePhotos reduces photos on all cores and hands each result to use, in
@@ -40,7 +41,7 @@ func preparePhotos(photos []*survey.Photo, ps PhotoSettings, use func(i int, r p
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				results <- done{i, prepareCached(photos[i], ps)}
+				results <- done{i, prepareRecovered(photos[i], ps)}
 			}
 		}()
 	}
@@ -54,6 +55,7 @@ func preparePhotos(photos []*survey.Photo, ps PhotoSettings, use func(i int, r p
 	}()
 	pending := map[int]photoResult{}
 	next, count := 0, 0
+	var failed *RenderPanic
 	for d := range results {
 		count++
 		if ps.Progress != nil {
@@ -61,11 +63,32 @@ func preparePhotos(photos []*survey.Photo, ps PhotoSettings, use func(i int, r p
 		}
 		pending[d.i] = d.r
 		for r, ok := pending[next]; ok; r, ok = pending[next] {
-			use(next, r)
+			if r.panic != nil && failed == nil {
+				failed = &RenderPanic{Stage: "photo " + photos[next].Name, Value: r.panic}
+			}
+			if failed == nil {
+				use(next, r)
+			}
 			delete(pending, next)
 			next++
 		}
 	}
+	if failed != nil {
+		// Raised again here, once every worker has finished, for the caller's
+		// recover (Render) to report.
+		panic(*failed)
+	}
+}
+
+// prepareRecovered is prepareCached with a panic caught, since a panic in a
+// worker goroutine could not be recovered by the caller.
+func prepareRecovered(ph *survey.Photo, ps PhotoSettings) (r photoResult) {
+	defer func() {
+		if v := recover(); v != nil {
+			r = photoResult{panic: v}
+		}
+	}()
+	return prepareCached(ph, ps)
 }
 
 // cacheVersion changes whenever the reduction changes what it writes.

@@ -43,7 +43,7 @@ func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
 	}
 	s, problems := ParseChecklist(file, src)
 	problems = append(problems, ComputeRequired(s)...)
-	s.Dir = dir
+	s.Dir, s.Source = dir, src
 	photos, skipped, photoProblems := ScanPhotos(dir, opt.MaxMegapixels)
 	s.Photos, s.Skipped = photos, skipped
 	problems = append(problems, photoProblems...)
