@@ -1,7 +1,9 @@
 package main
 
 import (
+	"errors"
 	"fmt"
+	"os"
 	"path/filepath"
 	"time"
 
@@ -11,6 +13,7 @@ import (
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
+	"github.com/lossline/lossline/templates"
 )
 
 func newReportCmd() *cobra.Command {
@@ -41,6 +44,9 @@ func runReport(c *cobra.Command, args []string) error {
 	if err != nil {
 		return err
 	}
+	if set.Templates, err = templates.Open(set.Templates.Override, templateRoots(c, dir)...); err != nil {
+		return badInput{err}
+	}
 	previous, _ := c.Flags().GetStringSlice("previous")
 	s, problems := survey.LoadSeries(dir, previous, set.Read)
 	if problems.HasErrors() {
@@ -57,7 +63,10 @@ func runReport(c *cobra.Command, args []string) error {
 		Display: set.Display, Place: set.Read.Place, Photos: photos, Templates: set.Templates, Created: time.Now(), Version: version,
 		Settings: set.Listing,
 	})
-	if err != nil {
+	var tmplErr *templates.Error
+	if errors.As(err, &tmplErr) {
+		return badInput{err}
+	} else if err != nil {
 		return err
 	}
 	for _, p := range warnings {
@@ -78,4 +87,22 @@ func runReport(c *cobra.Command, args []string) error {
 	}
 	fmt.Fprintf(w, "%d CMLs, %d at or below required thickness, %d warnings\n", len(f.Items), below, len(problems)+len(warnings))
 	return nil
+}
+
+// templateRoots are the folders a templates folder may lie in: the survey
+// folder and the folders the user named outside any settings file
+// (--templates, the folder of --config, LOSSLINE_TEMPLATES). A settings file
+// in a survey folder from elsewhere cannot point the report at other files.
+func templateRoots(c *cobra.Command, surveyDir string) []string {
+	roots := []string{surveyDir}
+	if f := c.Flags().Lookup("templates"); f != nil && f.Changed {
+		roots = append(roots, f.Value.String())
+	}
+	if config := flagString(c, "config"); config != "" {
+		roots = append(roots, filepath.Dir(config))
+	}
+	if env := os.Getenv("LOSSLINE_TEMPLATES"); env != "" {
+		roots = append(roots, env)
+	}
+	return roots
 }
