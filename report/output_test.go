@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"slices"
 	"strings"
+	"sync"
+	"sync/atomic"
 	"testing"
 	"time"
 
@@ -57,7 +59,7 @@ func assertRun(t *testing.T, dir, run string) {
 	}
 	siblings, _ := os.ReadDir(filepath.Dir(dir))
 	for _, e := range siblings {
-		if strings.HasPrefix(e.Name(), tempPrefix(dir)) || strings.HasPrefix(e.Name(), backupPrefix(dir)) {
+		if strings.HasPrefix(e.Name(), tempPrefix(dir)) || strings.HasPrefix(e.Name(), backupPrefix(dir)) || e.Name() == filepath.Base(lockName(dir)) {
 			t.Errorf("%s left beside the report", e.Name())
 		}
 	}
@@ -259,5 +261,38 @@ func TestCheckOutputKeepsReportsOutOfInputs(t *testing.T) {
 	s.History = &survey.History{Earlier: []*survey.Survey{{Dir: old}}}
 	if err := CheckOutput(filepath.Join(old, "x"), s); err == nil {
 		t.Error("inside an earlier survey merged by --previous: accepted")
+	}
+}
+
+// However runs take and release the lock, and remove its file, no two hold it at once.
+func TestLockIsExclusive(t *testing.T) {
+	out := filepath.Join(t.TempDir(), "report")
+	var holders, overlaps atomic.Int32
+	var wg sync.WaitGroup
+	for range 8 {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for range 40 {
+				release, err := lockFolder(lockName(out), out, WriteOptions{Wait: 20 * time.Second})
+				if err != nil {
+					t.Error(err)
+					return
+				}
+				if holders.Add(1) > 1 {
+					overlaps.Add(1)
+				}
+				time.Sleep(100 * time.Microsecond)
+				holders.Add(-1)
+				release()
+			}
+		}()
+	}
+	wg.Wait()
+	if overlaps.Load() > 0 {
+		t.Errorf("%d times two runs held the lock at once", overlaps.Load())
+	}
+	if _, err := os.Stat(lockName(out)); err == nil {
+		t.Error("lock file left behind")
 	}
 }
