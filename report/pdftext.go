@@ -185,8 +185,49 @@ func (p textPDF) MultiCell(w, h float64, txt, border, align string, fill bool) {
 	p.Fpdf.MultiCell(w, h, drawableText(txt), border, align, fill)
 }
 
-// Write draws flowing text; see fpdf.
-func (p textPDF) Write(h float64, txt string) { p.Fpdf.Write(h, drawableText(txt)) }
+// Write draws flowing text; see fpdf. fpdf's Write takes time in the
+// square of the text's length, so long text goes in short pieces.
+func (p textPDF) Write(h float64, txt string) {
+	for _, piece := range flowPieces(drawableText(txt)) {
+		p.Fpdf.Write(h, piece)
+	}
+}
+
+// Flowing text longer than flowWhole characters is written in pieces of at
+// most flowPiece characters.
+const (
+	flowWhole = 512
+	flowPiece = 64
+)
+
+// flowPieces cuts long text into pieces that each end after a space or a
+// line feed where there is one, so that writing them one after another
+// wraps lines as writing the whole would.
+func flowPieces(s string) []string {
+	if utf8.RuneCountInString(s) <= flowWhole {
+		return []string{s}
+	}
+	var pieces []string
+	for len(s) > 0 {
+		end, lastBreak, n := len(s), -1, 0
+		for i, r := range s {
+			if n == flowPiece {
+				end = i
+				break
+			}
+			n++
+			if r == ' ' || r == '\n' {
+				lastBreak = i + 1
+			}
+		}
+		if end < len(s) && lastBreak > 0 {
+			end = lastBreak
+		}
+		pieces = append(pieces, s[:end])
+		s = s[end:]
+	}
+	return pieces
+}
 
 // Writef draws formatted flowing text; see fpdf.
 func (p textPDF) Writef(h float64, format string, args ...any) {
@@ -200,12 +241,16 @@ func (p textPDF) WriteAligned(w, h float64, txt, align string) {
 
 // WriteLinkString draws flowing text linked to a URL; see fpdf.
 func (p textPDF) WriteLinkString(h float64, txt, target string) {
-	p.Fpdf.WriteLinkString(h, drawableText(txt), target)
+	for _, piece := range flowPieces(drawableText(txt)) {
+		p.Fpdf.WriteLinkString(h, piece, target)
+	}
 }
 
 // WriteLinkID draws flowing text linked inside the document; see fpdf.
 func (p textPDF) WriteLinkID(h float64, txt string, link int) {
-	p.Fpdf.WriteLinkID(h, drawableText(txt), link)
+	for _, piece := range flowPieces(drawableText(txt)) {
+		p.Fpdf.WriteLinkID(h, piece, link)
+	}
 }
 
 // Text draws text at a position; see fpdf.

@@ -1,9 +1,10 @@
 package report
 
 import (
-	"io"
+	"bytes"
 	"strings"
 	"testing"
+	"time"
 	"unicode/utf8"
 
 	"github.com/go-pdf/fpdf"
@@ -108,15 +109,52 @@ func TestChecklistTextWarnsAtTheLine(t *testing.T) {
 	}
 }
 
-// drawText passes text through every textPDF method that takes text and
-// writes the document; fpdf must neither panic nor fail.
-func drawText(t testing.TB, s string) {
+func TestFlowPieces(t *testing.T) {
+	short := strings.Repeat("word ", 100)
+	if got := flowPieces(short); len(got) != 1 || got[0] != short {
+		t.Errorf("%d runes cut into %d pieces", len(short), len(got))
+	}
+	long := strings.Repeat("wörd ", 300) + strings.Repeat("x", 200) + "\nend"
+	pieces := flowPieces(long)
+	if strings.Join(pieces, "") != long {
+		t.Fatal("pieces do not join to the text")
+	}
+	for i, p := range pieces[:len(pieces)-1] {
+		n := utf8.RuneCountInString(p)
+		if n > flowPiece || (!strings.HasSuffix(p, " ") && !strings.HasSuffix(p, "\n") && n != flowPiece) {
+			t.Errorf("piece %d (%d runes) %q", i, n, p)
+		}
+	}
+}
+
+// A long paragraph takes time in proportion to its length: fpdf's Write
+// alone takes minutes on this one.
+func TestLongParagraphIsFast(t *testing.T) {
+	p := newTextPDF()
+	start := time.Now()
+	p.Write(5, strings.Repeat("Pitting on the north side, ", 8000)) // 216 000 characters
+	if err := p.Error(); err != nil {
+		t.Fatal(err)
+	}
+	if took := time.Since(start); took > 10*time.Second {
+		t.Errorf("took %v", took)
+	}
+}
+
+// newTextPDF is a document with the regular face set, ready for text.
+func newTextPDF() textPDF {
 	p := textPDF{fpdf.New("P", "mm", "A4", "")}
 	p.AddUTF8FontFromBytes(fontFamily, "", goregular.TTF)
 	p.SetFont(fontFamily, "", 10)
+	p.AddPage()
+	return p
+}
+
+// drawText passes s through every textPDF method that takes text; fpdf must
+// neither panic nor fail.
+func drawText(t testing.TB, p textPDF, s string) {
 	p.SetTitle(s, true)
 	p.SetAuthor(s, true)
-	p.AddPage()
 	p.Bookmark(s, 0, -1)
 	p.CellFormat(40, 5, s, "", 1, "L", false, 0, "")
 	p.MultiCell(60, 5, s, "", "L", false)
@@ -124,21 +162,41 @@ func drawText(t testing.TB, s string) {
 	p.Text(20, 200, s)
 	_ = p.SplitText(s, 30)
 	_ = p.GetStringWidth(s)
-	if err := p.Output(io.Discard); err != nil {
-		t.Fatalf("PDF of %q: %v", s, err)
+	if err := p.Error(); err != nil {
+		t.Fatalf("drawing %q: %v", s, err)
 	}
 }
 
+var fuzzSeeds = []string{
+	"", "plain ASCII", "calibrated 🙂 first", "🇩🇪", "👨\u200d👩\u200d👧", "\u2764\ufe0f", "👍🏽",
+	"e\u0301 a\u0308 \u20dd", "שלום עולם", "مرحبا", "\u202eevil\u202c", "a\x00b", "\xff\xfe\xfd",
+	"\xed\xa0\x80", // an encoded surrogate: not UTF-8
+	"tab\there\r\n", "µ° ± ≤ — •", "漢字", "\U0010ffff", "\ufffd", "{nb}",
+}
+
+// Every seed drawn into one document that is then written whole.
+func TestSeedsMakeAPDF(t *testing.T) {
+	p := newTextPDF()
+	for _, s := range fuzzSeeds {
+		drawText(t, p, s)
+	}
+	var b bytes.Buffer
+	if err := p.Output(&b); err != nil || b.Len() == 0 {
+		t.Fatalf("PDF: %v", err)
+	}
+}
+
+// FuzzDrawableText: drawableText never panics, returns UTF-8 of characters
+// the font has only, is idempotent, and what it returns never makes fpdf
+// panic. One document takes many inputs (a new one every 200), so the
+// fuzzer runs fast; TestSeedsMakeAPDF writes a document out.
 func FuzzDrawableText(f *testing.F) {
-	for _, seed := range []string{
-		"", "plain ASCII", "calibrated 🙂 first", "🇩🇪", "👨\u200d👩\u200d👧", "\u2764\ufe0f", "👍🏽",
-		"e\u0301 a\u0308 \u20dd", "שלום עולם", "مرحبا", "\u202eevil\u202c", "a\x00b", "\xff\xfe\xfd",
-		"\xed\xa0\x80", // an encoded surrogate: not UTF-8
-		"tab\there\r\n", "µ° ± ≤ — •", "漢字", "\U0010ffff", "\ufffd", "{nb}",
-	} {
+	for _, seed := range fuzzSeeds {
 		f.Add(seed)
 	}
 	regular := parseFont(f, goregular.TTF)
+	var doc textPDF
+	inputs := 0
 	f.Fuzz(func(t *testing.T, s string) {
 		out := drawableText(s)
 		if !utf8.ValidString(out) {
@@ -155,6 +213,10 @@ func FuzzDrawableText(f *testing.F) {
 		if strings.Count(out, Undrawable) < len(undrawableRunes(s)) {
 			t.Fatalf("drawableText(%q) = %q replaced fewer characters than undrawableRunes lists", s, out)
 		}
-		drawText(t, s)
+		if inputs%200 == 0 {
+			doc = newTextPDF()
+		}
+		inputs++
+		drawText(t, doc, s)
 	})
 }

@@ -468,3 +468,15 @@ func TestConcurrentReportsIntoOneFolder(t *testing.T) {
 	}
 	t.Logf("a run waited for the other: %v", waited)
 }
+
+// A panic while rendering ends with exit 3 and one line, never a stack trace.
+func TestRenderPanicIsOneLine(t *testing.T) {
+	var b bytes.Buffer
+	err := fmt.Errorf("rendering: %w", report.RenderPanic{Stage: report.PDFFile, Value: "index out of range [128578] with length 65536\ngoroutine 1 [running]:"})
+	if code := exitCode(err, &b); code != exitOther {
+		t.Errorf("exit %d, want %d", code, exitOther)
+	}
+	if msg := b.String(); strings.Count(msg, "\n") != 1 || !strings.Contains(msg, "internal error while rendering report.pdf: index out of range") {
+		t.Errorf("message %q", msg)
+	}
+}
