@@ -7,7 +7,6 @@ package folder
 import (
 	"errors"
 	"io/fs"
-	"os"
 	"path/filepath"
 	"strings"
 )
@@ -48,15 +47,4 @@ func Contains(dir, path string) bool {
 		return false
 	}
 	return rel == "." || (rel != ".." && !strings.HasPrefix(rel, ".."+string(filepath.Separator)) && !filepath.IsAbs(rel))
-}
-
-// Same reports whether two paths name the same existing file or folder,
-// however they are written; false when either cannot be examined.
-func Same(a, b string) bool {
-	sa, err := os.Stat(a)
-	if err != nil {
-		return false
-	}
-	sb, err := os.Stat(b)
-	return err == nil && os.SameFile(sa, sb)
 }

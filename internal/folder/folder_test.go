@@ -51,7 +51,4 @@ func TestResolveFollowsLinksOfTheExistingPart(t *testing.T) {
 	if _, err := Resolve(filepath.Join(root, "loop", "x")); err == nil {
 		t.Error("a link to itself: no error")
 	}
-	if !Same(filepath.Join(root, "link"), real) || Same(real, root) {
-		t.Error("Same: a link and its target are one folder; two folders are not")
-	}
 }
