@@ -24,6 +24,7 @@ type result struct {
 	prep   Prepared
 	err    error
 	cached bool
+	panic  any // what the reduction panicked with, if it did
 }
 
 // Stage prepares srcs on all cores and hands each result to use, in input
@@ -49,7 +50,7 @@ func stage(srcs []Source, s Settings, use func(i int, r result)) {
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				results <- done{i, prepareCached(srcs[i], s)}
+				results <- done{i, prepareRecovered(srcs[i], s)}
 			}
 		}()
 	}
@@ -63,6 +64,7 @@ func stage(srcs []Source, s Settings, use func(i int, r result)) {
 	}()
 	pending := map[int]result{}
 	next, count := 0, 0
+	var failed *Panic
 	for d := range results {
 		count++
 		if s.Progress != nil {
@@ -70,12 +72,45 @@ func stage(srcs []Source, s Settings, use func(i int, r result)) {
 		}
 		pending[d.i] = d.r
 		for r, ok := pending[next]; ok; r, ok = pending[next] {
-			use(next, r)
+			if r.panic != nil && failed == nil {
+				failed = &Panic{Path: srcs[next].Path, Value: r.panic}
+			}
+			if failed == nil {
+				use(next, r)
+			}
 			delete(pending, next)
 			next++
 		}
 	}
+	if failed != nil {
+		// Raised again here, once every worker has finished, for the caller's
+		// recover (Render) to report.
+		panic(*failed)
+	}
 }
+
+// prepareRecovered is prepareCached with a panic caught, since a panic in a
+// worker goroutine could not be recovered by the caller.
+func prepareRecovered(src Source, s Settings) (r result) {
+	defer func() {
+		if v := recover(); v != nil {
+			r = result{panic: v}
+		}
+	}()
+	return prepareOne(src, s)
+}
+
+// prepareOne prepares one photo in a worker; tests replace it to make a worker panic.
+var prepareOne = prepareCached
+
+// Panic is a panic raised while preparing one photo, raised again by Stage
+// once every worker has stopped, so that the caller can recover it.
+type Panic struct {
+	Path  string
+	Value any
+}
+
+func (p Panic) Error() string { return fmt.Sprintf("photo %s: %v", p.Path, p.Value) }
 
 // cacheVersion changes whenever the reduction changes what it writes.
 const cacheVersion = "planar-catmull-rom-1"

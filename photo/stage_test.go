@@ -156,3 +156,23 @@ func TestStageOrderAndErrors(t *testing.T) {
 		t.Errorf("order %v, want [0 1 2]", got)
 	}
 }
+
+// A panic in a worker goroutine reaches the caller, once every worker has
+// stopped, as a Panic naming the photo, instead of ending the process.
+func TestStageWorkerPanicReachesCaller(t *testing.T) {
+	saved := prepareOne
+	defer func() { prepareOne = saved }()
+	prepareOne = func(src Source, s Settings) result {
+		panic("reduction failed on " + src.Path)
+	}
+	used := 0
+	defer func() {
+		v := recover()
+		p, ok := v.(Panic)
+		if !ok || p.Path != "bad.jpg" || used != 0 {
+			t.Fatalf("recovered %v after %d photos used, want a Panic for bad.jpg and none used", v, used)
+		}
+	}()
+	Stage([]Source{{Path: "bad.jpg"}}, Settings{LongSide: 200, Quality: 80}, func(int, Prepared, error) { used++ })
+	t.Fatal("Stage returned after a worker panicked")
+}

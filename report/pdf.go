@@ -53,7 +53,7 @@ const (
 
 // doc is the PDF being written and what the sections share.
 type doc struct {
-	pdf       *fpdf.Fpdf
+	pdf       textPDF // all text goes through it
 	f         *findings.Findings
 	s         *survey.Survey
 	items     []*survey.Assessed
@@ -72,12 +72,14 @@ type photoEntry struct {
 }
 
 // PDF renders report.pdf. Photos that cannot be read are left out and come
-// back as warnings.
+// back as warnings, as do checklist lines with characters the fonts cannot
+// draw (TextWarnings).
 func PDF(f *findings.Findings, opts Options) ([]byte, survey.ProblemList, error) {
-	pdf := fpdf.New("P", "mm", "A4", "")
+	pdf := textPDF{fpdf.New("P", "mm", "A4", "")}
 	s := f.Survey
 	disp := opts.Display.resolve(s.Units)
-	d := &doc{pdf: pdf, f: f, s: s, items: f.Items, opts: opts, u: units{disp.Thickness, disp.Rate}, photos: map[string]*photoEntry{}}
+	d := &doc{pdf: pdf, f: f, s: s, items: f.Items, opts: opts, u: units{disp.Thickness, disp.Rate}, photos: map[string]*photoEntry{},
+		warnings: TextWarnings(s)}
 	pdf.SetMargins(margin, margin, margin)
 	pdf.SetAutoPageBreak(true, bottomGap)
 	pdf.SetCellMargin(0) // tables pad their own cells; SplitText then measures the same width

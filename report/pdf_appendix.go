@@ -27,7 +27,7 @@ func (d *doc) methods() error {
 	d.heading(1, "Settings used for this report")
 	tmpl := "built in"
 	if d.opts.Templates.Override != "" {
-		tmpl = d.opts.Templates.Override + " (files there replace the built-in texts)"
+		tmpl = d.opts.Templates.Override + " (its methods text replaces the built-in one; its cautions follow the built-in cautions)"
 	}
 	d.keyValues([][2]string{
 		{"Rate model", rateModelText(d.f.Settings.Policy.RateModel) + " (components may set their own)"},

@@ -154,7 +154,7 @@ func indexOf(c *survey.Component, id string) int {
 var markerShapes = []string{"circle", "square", "up", "diamond", "down", "plus", "cross"}
 
 // marker draws shape i at (x, y), filled black or hollow.
-func marker(p *fpdf.Fpdf, x, y float64, i int, filled bool) {
+func marker(p textPDF, x, y float64, i int, filled bool) {
 	const r = 1.1
 	style := "D"
 	if filled {

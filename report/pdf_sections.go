@@ -99,9 +99,14 @@ func (d *doc) headlines() {
 	p.SetXY(margin, y+32)
 }
 
-// cautions writes the boxed cautions from the template.
+// cautions writes the boxed cautions: the built-in text, then any the
+// templates folder adds.
 func (d *doc) cautions() error {
 	text, err := d.opts.Templates.Execute("report/cautions.md", nil)
+	if err != nil {
+		return fmt.Errorf("cautions template: %w", err)
+	}
+	added, err := d.opts.Templates.Addition("report/cautions.md", nil)
 	if err != nil {
 		return fmt.Errorf("cautions template: %w", err)
 	}
@@ -121,6 +126,16 @@ func (d *doc) cautions() error {
 	p.Rect(margin, y0, d.width(), p.GetY()-y0+1, "D")
 	p.SetLineWidth(0.2)
 	p.SetXY(margin, p.GetY()+4)
+	if strings.TrimSpace(added) != "" {
+		// The built-in cautions in the box always print; the templates
+		// folder may only add to them, below the box.
+		d.need(20)
+		d.font("B", 11)
+		p.Bookmark("Further cautions", 1, -1)
+		p.CellFormat(0, 6, "Further cautions", "", 1, "L", false, 0, "")
+		d.markdown(added)
+		p.Ln(2)
+	}
 	return nil
 }
 

@@ -108,30 +108,6 @@ func TestCSVInInches(t *testing.T) {
 
 func ptr(v float64) *float64 { return &v }
 
-// A failed write leaves the earlier report as it was.
-func TestWriteFilesAtomic(t *testing.T) {
-	dir := t.TempDir()
-	if err := WriteFiles(dir, []File{{"a.txt", []byte("old")}}); err != nil {
-		t.Fatal(err)
-	}
-	// A file name that cannot be created (a folder of that name exists) fails the second output.
-	os.Mkdir(filepath.Join(dir, "b.txt"), 0o755)
-	err := WriteFiles(dir, []File{{"a.txt", []byte("new")}, {"b.txt/x", []byte("y")}})
-	if err == nil {
-		t.Fatal("no error")
-	}
-	got, _ := os.ReadFile(filepath.Join(dir, "a.txt"))
-	if string(got) != "old" {
-		t.Errorf("a.txt = %q after a failed run, want the earlier %q", got, "old")
-	}
-	entries, _ := os.ReadDir(dir)
-	for _, e := range entries {
-		if strings.HasSuffix(e.Name(), ".tmp") {
-			t.Errorf("temporary file %s left behind", e.Name())
-		}
-	}
-}
-
 // The trend chart's projection ends at the computed retirement date, on the
 // required thickness.
 func TestTrendProjectionMatchesRetirement(t *testing.T) {

@@ -13,6 +13,7 @@ import (
 type Survey struct {
 	Dir       string    // the survey folder
 	File      string    // path of survey.md as given to the reader
+	Source    []byte    // survey.md as read, for checks of its text by line
 	Title     string    // front matter title
 	Site      string    // front matter site
 	Date      time.Time // this visit

@@ -12,6 +12,12 @@ const (
 	placeholderClose = "⟩"
 )
 
+// IsPlaceholderMark reports whether r is one of the scaffold's placeholder
+// marks, which check refuses wherever they are left.
+func IsPlaceholderMark(r rune) bool {
+	return string(r) == placeholderOpen || string(r) == placeholderClose
+}
+
 // placeholders reports, at its line, every placeholder of the scaffold left in
 // src, and returns src without the marks, so the rest of the line reads as the
 // example it is and only the placeholder is reported.

@@ -5,6 +5,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 )
 
@@ -30,7 +31,11 @@ func runCheck(c *cobra.Command, args []string) error {
 		return err
 	}
 	previous, _ := c.Flags().GetStringSlice("previous")
-	_, problems := survey.LoadSeries(dir, previous, set.Read)
+	s, problems := survey.LoadSeries(dir, previous, set.Read)
+	if s != nil {
+		problems = append(problems, report.TextWarnings(s)...)
+		problems.Sort()
+	}
 	w := c.OutOrStdout()
 	errs := 0
 	for _, p := range problems {

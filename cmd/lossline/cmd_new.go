@@ -46,7 +46,7 @@ func runNew(c *cobra.Command, args []string) error {
 	for _, name := range templates.Scaffold {
 		text, err := set.Execute("scaffold/"+name, data)
 		if err != nil {
-			return err
+			return badInput{err}
 		}
 		path := filepath.Join(dir, name)
 		f, err := os.OpenFile(path, os.O_WRONLY|os.O_CREATE|os.O_EXCL, 0o644)

@@ -1,7 +1,9 @@
 package main
 
 import (
+	"errors"
 	"fmt"
+	"os"
 	"path/filepath"
 	"time"
 
@@ -12,6 +14,7 @@ import (
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
+	"github.com/lossline/lossline/templates"
 )
 
 func newReportCmd() *cobra.Command {
@@ -19,8 +22,11 @@ func newReportCmd() *cobra.Command {
 		Use:   "report SURVEY",
 		Short: "Write report.pdf, results.json and results.csv for a survey folder",
 		Long: "Reads SURVEY/survey.md and SURVEY/photos, computes rates, remaining life and dates,\n" +
-			"and writes OUTDIR/report.pdf, OUTDIR/results.json and OUTDIR/results.csv.\n" +
-			"Outputs are replaced only when all three are written; input files are never changed.",
+			"and writes OUTDIR/report.pdf, results.json, results.csv and locations.geojson.\n" +
+			"OUTDIR is replaced whole, in one rename, once every output is written; a second run\n" +
+			"writing the same OUTDIR waits for the first. OUTDIR may not be the survey folder, lie in\n" +
+			"its photos folder or an earlier survey folder, or hold files lossline did not write.\n" +
+			"Input files are never changed.",
 		Example: "  lossline report site-2026 -o site-2026/report --previous site-2022",
 		Args:    cobra.ExactArgs(1),
 		RunE:    runReport,
@@ -42,10 +48,16 @@ func runReport(c *cobra.Command, args []string) error {
 	if err != nil {
 		return err
 	}
+	if set.Templates, err = templates.Open(set.Templates.Override, templateRoots(c, dir)...); err != nil {
+		return badInput{err}
+	}
 	previous, _ := c.Flags().GetStringSlice("previous")
 	s, problems := survey.LoadSeries(dir, previous, set.Read)
 	if problems.HasErrors() {
 		return survey.InputError{Problems: problems}
+	}
+	if err := report.CheckOutput(out, s); err != nil {
+		return outputError(err)
 	}
 	stderr := c.ErrOrStderr()
 	for _, p := range problems {
@@ -59,14 +71,20 @@ func runReport(c *cobra.Command, args []string) error {
 		Settings:      set.Listing,
 		PreparePhotos: func(srcs []photo.Source, use func(int, photo.Prepared, error)) { photo.Stage(srcs, photos, use) },
 	})
-	if err != nil {
+	var tmplErr *templates.Error
+	if errors.As(err, &tmplErr) {
+		return badInput{err}
+	} else if err != nil {
 		return err
 	}
 	for _, p := range warnings {
 		fmt.Fprintln(stderr, p)
 	}
-	if err := report.WriteFiles(out, files); err != nil {
-		return err
+	err = report.WriteFolder(out, files, report.WriteOptions{Wait: outputWait, Waiting: func() {
+		fmt.Fprintf(stderr, "waiting for another lossline run writing %s\n", out)
+	}})
+	if err != nil {
+		return outputError(err)
 	}
 	below := 0
 	for _, it := range f.Items {
@@ -80,4 +98,35 @@ func runReport(c *cobra.Command, args []string) error {
 	}
 	fmt.Fprintf(w, "%d CMLs, %d at or below required thickness, %d warnings\n", len(f.Items), below, len(problems)+len(warnings))
 	return nil
+}
+
+// outputWait is how long a run waits for another one writing the same
+// output folder.
+const outputWait = 2 * time.Minute
+
+// outputError makes a refused output folder bad input (exit 1).
+func outputError(err error) error {
+	var refused *report.OutputRefused
+	if errors.As(err, &refused) {
+		return badInput{err}
+	}
+	return err
+}
+
+// templateRoots are the folders a templates folder may lie in: the survey
+// folder and the folders the user named outside any settings file
+// (--templates, the folder of --config, LOSSLINE_TEMPLATES). A settings file
+// in a survey folder from elsewhere cannot point the report at other files.
+func templateRoots(c *cobra.Command, surveyDir string) []string {
+	roots := []string{surveyDir}
+	if f := c.Flags().Lookup("templates"); f != nil && f.Changed {
+		roots = append(roots, f.Value.String())
+	}
+	if config := flagString(c, "config"); config != "" {
+		roots = append(roots, filepath.Dir(config))
+	}
+	if env := os.Getenv("LOSSLINE_TEMPLATES"); env != "" {
+		roots = append(roots, env)
+	}
+	return roots
 }

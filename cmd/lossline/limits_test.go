@@ -58,12 +58,16 @@ type limitedRun struct {
 // that hits the time limit fails the test.
 func runLimited(t *testing.T, args ...string) limitedRun {
 	t.Helper()
-	bin := binary(t)
+	return runUnder(t, "", args...)
+}
+
+// runUnder is runLimited with further ulimit options in front of the
+// command, such as "-f 100" (file size, in 512-byte blocks).
+func runUnder(t *testing.T, ulimits string, args ...string) limitedRun {
+	t.Helper()
 	ctx, cancel := context.WithTimeout(context.Background(), limitWall)
 	defer cancel()
-	script := "ulimit -v " + strconv.Itoa(limitAddressSpaceKB) + " && exec \"$0\" \"$@\""
-	cmd := exec.CommandContext(ctx, "sh", append([]string{"-c", script, bin}, args...)...)
-	cmd.Env = append(os.Environ(), "XDG_CACHE_HOME="+t.TempDir())
+	cmd := limitedCommand(ctx, t, ulimits, args...)
 	var out, errb bytes.Buffer
 	cmd.Stdout, cmd.Stderr = &out, &errb
 	start := time.Now()
@@ -79,6 +83,22 @@ func runLimited(t *testing.T, args ...string) limitedRun {
 		t.Fatalf("lossline %v: %v", args, err)
 	}
 	return r
+}
+
+// limitedCommand is the command runLimited runs: the built binary under the
+// address-space limit and any further ulimit options, with its own photo
+// cache.
+func limitedCommand(ctx context.Context, t *testing.T, ulimits string, args ...string) *exec.Cmd {
+	t.Helper()
+	bin := binary(t)
+	script := "ulimit -v " + strconv.Itoa(limitAddressSpaceKB) + " && "
+	if ulimits != "" {
+		script += "ulimit " + ulimits + " && "
+	}
+	script += "exec \"$0\" \"$@\""
+	cmd := exec.CommandContext(ctx, "sh", append([]string{"-c", script, bin}, args...)...)
+	cmd.Env = append(os.Environ(), "XDG_CACHE_HOME="+t.TempDir())
+	return cmd
 }
 
 // The limits themselves work: the demo reports within them.
