@@ -411,9 +411,9 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 		return nil
 	},
 	"repair cost": func(d *Design, value string, _ Unit) error {
-		v, err := ParseAmount(value)
+		v, err := ParseCost(value)
 		if err != nil {
-			return fmt.Errorf("repair cost: %w", err)
+			return fmt.Errorf("repair cost: %q is %w", value, err)
 		}
 		d.RepairCost = &v
 		return nil

@@ -228,7 +228,7 @@ func TestDesignProblems(t *testing.T) {
 		{"corrosivity", "- corrosivity: C9\n", `survey.md:9: corrosivity "C9" is not an ISO 9223 category`},
 		{"assumed rate", "- assumed rate: fast\n", `survey.md:9: assumed rate: "fast" is not a rate`},
 		{"repair without item", "- repair: 40\n", "survey.md:9: repair: write a quantity and a priced item"},
-		{"repair cost", "- repair cost: lots\n", `survey.md:9: repair cost: "lots" is not an amount`},
+		{"repair cost", "- repair cost: lots\n", `survey.md:9: repair cost: "lots" is not a number`},
 		{"required above nominal by method", "- required: section loss\n  - allowed section loss: 140 %\n", "survey.md:9: required: allowed section loss must be between 0 and 100 %"},
 	} {
 		src := head + c.list + "\n| CML | 2024-01-01 |\n|---|---|\n| A | 9 |\n"

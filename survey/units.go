@@ -2,6 +2,7 @@ package survey
 
 import (
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 )
@@ -148,9 +149,9 @@ func ParseRate(s string, def Unit) (float64, error) {
 	return 0, fmt.Errorf("%q: unknown rate unit %q (use mm/y, in/y or mpy)", s, unit)
 }
 
-// ParseAmount reads a non-negative amount of money or a quantity: "12000",
-// "12 000", "12_000", "85.50"; a trailing currency word is ignored
-// ("12000 EUR").
+// ParseAmount reads a quantity of 0 or more: "12000", "12 000", "12_000",
+// "85.50"; a trailing word is ignored ("12000 EUR"). Amounts of money are
+// read by ParseMoney.
 func ParseAmount(s string) (float64, error) {
 	f := strings.Fields(s)
 	if len(f) > 1 {
@@ -160,7 +161,7 @@ func ParseAmount(s string) (float64, error) {
 	}
 	t := strings.ReplaceAll(strings.Join(f, ""), "_", "")
 	v, err := strconv.ParseFloat(t, 64)
-	if err != nil || v < 0 {
+	if err != nil || v < 0 || math.IsNaN(v) || math.IsInf(v, 0) {
 		return 0, fmt.Errorf("%q is not an amount such as 12000", s)
 	}
 	return v, nil

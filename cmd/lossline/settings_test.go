@@ -54,7 +54,7 @@ func TestSettingsFileWrongType(t *testing.T) {
 		{"budget:\n", `1: budget has no value`},
 		{"budget: [1, 2]\n", `1: budget must be a single value, not a list`},
 		{"unit-costs: 950\n", `1: unit-costs must be item: price lines`},
-		{"unit-costs:\n  pipe-m: -5\n", `2: unit-costs: pipe-m must not be negative, not -5`},
+		{"unit-costs:\n  pipe-m: -5\n", `2: unit-costs: pipe-m "-5" is negative`},
 		{"rate-model: fastest\n", `1: rate-model "fastest" is not one of long, short, max, fit`},
 		{"interval-cap-yeras: 8\n", `1: unknown setting "interval-cap-yeras"`},
 		{"budget: 1\nbudget: 2\n", `2: budget is set twice (first on line 1)`},
@@ -127,15 +127,15 @@ func TestSettingsGroupedAmounts(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if s.Plan.Budget != 50000 || s.Plan.PerYear != 45000.5 || s.Plan.Years != 2 ||
-		s.Plan.Costs.Unit["pipe-m"] != 1250 || s.Plan.Costs.Unit["recoat-m2"] != 85 {
+	if s.Plan.Budget != 50000_00 || s.Plan.PerYear != 45000_50 || s.Plan.Years != 2 ||
+		s.Plan.Costs.Unit["pipe-m"] != 1250_00 || s.Plan.Costs.Unit["recoat-m2"] != 85_00 {
 		t.Errorf("plan settings: %+v", s.Plan)
 	}
 	c = newPlanCmd()
 	if err := c.ParseFlags([]string{"--budget", "1 000 000"}); err != nil {
 		t.Fatal(err)
 	}
-	if s, err := loadSettings(c, dir); err != nil || s.Plan.Budget != 1e6 {
+	if s, err := loadSettings(c, dir); err != nil || s.Plan.Budget != 1_000_000_00 {
 		t.Errorf("--budget \"1 000 000\": %v %v", s.Plan.Budget, err)
 	}
 	// Through the command: --config's budget replaces the demo's 60 000.
@@ -163,15 +163,18 @@ func TestParseValue(t *testing.T) {
 		{kindNumber, "Inf", nil, "not a finite number"},
 		{kindNumber, "1e16", nil, "too large"},
 		{kindNumber, "1e400", nil, "too large"},
-		{kindMoney, "50 000", 50000.0, ""},
-		{kindMoney, "50\u2009000", 50000.0, ""},
-		{kindMoney, "50\u00a0000", 50000.0, ""},
-		{kindMoney, "1 250 000.75", 1250000.75, ""},
-		{kindMoney, "-1 000", -1000.0, ""}, // the range refuses it
+		{kindMoney, "50 000", survey.Money(50000_00), ""},
+		{kindMoney, "50\u2009000", survey.Money(50000_00), ""},
+		{kindMoney, "50\u00a0000", survey.Money(50000_00), ""},
+		{kindMoney, "1 250 000.75", survey.Money(1250000_75), ""},
+		{kindMoney, "1e6", survey.Money(1_000_000_00), ""},
+		{kindMoney, "-1 000", nil, "negative"},
 		{kindMoney, "5 0000", nil, "not a number (group digits"},
 		{kindMoney, "50 00", nil, "not a number (group digits"},
-		{kindMoney, "1 000 000 000 000 000", 1e15, ""},
-		{kindMoney, "10 000 000 000 000 000", nil, "too large"},
+		{kindMoney, "9 999 999 999 999.99", survey.Money(999_999_999_999_999), ""},
+		{kindMoney, "10 000 000 000 000", nil, "too large"},
+		{kindMoney, "1e30", nil, "too large"},
+		{kindMoney, "0.005", nil, "finer than a cent"},
 		{kindMoney, "nine hundred", nil, "not a number"},
 		{kindWhole, "80", 80, ""},
 		{kindWhole, "80.0", 80, ""},

@@ -16,6 +16,9 @@ func day(s string) time.Time {
 
 func f(v float64) *float64 { return &v }
 
+// units is an amount of whole currency units.
+func units(n int64) survey.Money { return survey.Money(n * 100) }
+
 // Risk bands at their boundaries (lossline's own table, stated in the report).
 func TestLikelihoodBands(t *testing.T) {
 	for _, c := range []struct {
@@ -55,7 +58,7 @@ func TestLikelihoodUsesLowerBound(t *testing.T) {
 }
 
 // candidate builds a one-CML component: thickness now, rate, required, cost.
-func candidate(name string, cost, nowMM, rate, reqMM float64, cons survey.Consequence) *Candidate {
+func candidate(name string, cost survey.Money, nowMM, rate, reqMM float64, cons survey.Consequence) *Candidate {
 	readings := []wallloss.Reading{{Date: day("2021-01-01"), ThicknessMM: nowMM + 5*rate}, {Date: day("2026-01-01"), ThicknessMM: nowMM}}
 	res := wallloss.Assess(wallloss.Input{Readings: readings, RequiredMM: &reqMM}, wallloss.Policy{IntervalCapYears: 10})
 	comp := &survey.Component{Name: name, Design: survey.Design{Consequence: cons, RepairCost: &cost, NominalMM: f(10)}}
@@ -74,22 +77,22 @@ func names(cs []Choice) []string {
 
 func TestSingleYear(t *testing.T) {
 	start := day("2026-01-01")
-	below := candidate("below", 80, 4.9, 0.2, 5, survey.ConsequenceLow)      // at or below required
-	risky := candidate("risky", 50, 5.3, 0.2, 5, survey.ConsequenceVeryHigh) // 1.5 y left: likely × 5
-	calm := candidate("calm", 40, 9, 0.1, 5, survey.ConsequenceLow)          // 40 y: rare
+	below := candidate("below", units(80), 4.9, 0.2, 5, survey.ConsequenceLow)      // at or below required
+	risky := candidate("risky", units(50), 5.3, 0.2, 5, survey.ConsequenceVeryHigh) // 1.5 y left: likely × 5
+	calm := candidate("calm", units(40), 9, 0.1, 5, survey.ConsequenceLow)          // 40 y: rare
 	// Anything at or below required comes first even if another buys more.
-	p := Single([]*Candidate{below, risky, calm}, start, 100)
+	p := Single([]*Candidate{below, risky, calm}, start, units(100))
 	if got := names(p.Chosen); len(got) != 1 || got[0] != "below" {
 		t.Errorf("chosen %v, want [below]", got)
 	}
 	// A budget that exactly fits both.
-	p = Single([]*Candidate{below, risky}, start, 130)
-	if len(p.Chosen) != 2 || p.Spent[0] != 130 || len(p.Deferred) != 0 {
+	p = Single([]*Candidate{below, risky}, start, units(130))
+	if len(p.Chosen) != 2 || p.Spent[0] != units(130) || len(p.Deferred) != 0 {
 		t.Errorf("exact fit: %+v", p)
 	}
 	// Zero budget: nothing funded, and the plan says the repairs at or below required do not fit.
 	p = Single([]*Candidate{below, risky, calm}, start, 0)
-	if len(p.Chosen) != 0 || len(p.Deferred) != 3 || p.MandatoryOver != 80 {
+	if len(p.Chosen) != 0 || len(p.Deferred) != 3 || p.MandatoryOver != units(80) {
 		t.Errorf("zero budget: chosen %v, deferred %d, over %v", names(p.Chosen), len(p.Deferred), p.MandatoryOver)
 	}
 	// The risk a deferred repair still carries, at the end of the plan, most first:
@@ -102,21 +105,21 @@ func TestSingleYear(t *testing.T) {
 func TestMultiYear(t *testing.T) {
 	start := day("2026-01-01")
 	// Retires in about 1.5 years (deadline in plan year 2), costs more than any one year's budget.
-	big := candidate("big", 100, 5.3, 0.2, 5, survey.ConsequenceHigh)
-	p := MultiYear([]*Candidate{big}, start, []float64{50, 50, 50})
-	if len(p.Uncovered) != 1 || p.Uncovered[0].Money != 50 {
+	big := candidate("big", units(100), 5.3, 0.2, 5, survey.ConsequenceHigh)
+	p := MultiYear([]*Candidate{big}, start, []survey.Money{units(50), units(50), units(50)})
+	if len(p.Uncovered) != 1 || p.Uncovered[0].Money != units(50) {
 		t.Fatalf("uncovered %+v, want big short by 50", p.Uncovered)
 	}
 	if len(p.Chosen) != 0 || len(p.Deferred) != 1 {
 		t.Errorf("chosen %v deferred %d", names(p.Chosen), len(p.Deferred))
 	}
 	// With 100 in year 2, it is placed there, before its deadline.
-	p = MultiYear([]*Candidate{big}, start, []float64{50, 100, 50})
+	p = MultiYear([]*Candidate{big}, start, []survey.Money{units(50), units(100), units(50)})
 	if len(p.Chosen) != 1 || p.Chosen[0].Year != 2 || len(p.Uncovered) != 0 {
 		t.Errorf("chosen %+v", p.Chosen)
 	}
 	// Risk is recomputed each year: 6 years left now (unlikely), 4 at the start of year 3 (possible).
-	slow := candidate("slow", 10, 6.2, 0.2, 5, survey.ConsequenceMedium)
+	slow := candidate("slow", units(10), 6.2, 0.2, 5, survey.ConsequenceMedium)
 	b1, _ := slow.RiskAt(start)
 	b3, _ := slow.RiskAt(wallloss.AddYears(start, 2))
 	if b1 != int(Unlikely)*3 || b3 != int(Possible)*3 {
