@@ -361,3 +361,51 @@ func TestUsageErrors(t *testing.T) {
 		t.Errorf("lossline alone: exit %d\n%s", code, out)
 	}
 }
+
+// Budgets and prices that are not finite, negative or 10^13 and over are
+// refused where they were given: settings file and line, environment
+// variable or flag; never turned into a plan.
+func TestMoneySettingsRefusedAtTheirPlace(t *testing.T) {
+	for _, c := range []struct{ file, want string }{
+		{"budget: 1e30\n", `:1: budget "1e30" is too large (amounts of money must be under 10 000 000 000 000)`},
+		{"currency: EUR\nbudget: .inf\n", `:2: budget ".inf" is not a finite number`},
+		{"budget-per-year: NaN\n", `:1: budget-per-year "NaN" is not a finite number`},
+		{"budget: 10 000 000 000 000\n", `:1: budget "10 000 000 000 000" is too large`},
+		{"budget: 100.001\n", `:1: budget "100.001" is finer than a cent`},
+		{"unit-costs:\n  pipe-m: 950\n  recoat-m2: 1e30\n", `:3: unit-costs: recoat-m2 "1e30" is too large`},
+		{"unit-costs:\n  pipe-m: .nan\n", `:2: unit-costs: pipe-m ".nan" is not a finite number`},
+	} {
+		dir := writeSettings(t, c.file)
+		code, out, errOut := runCLI(t, "plan", "../../testdata/demo", "--config", filepath.Join(dir, SettingsFile))
+		want := filepath.Join(dir, SettingsFile) + c.want
+		if code != exitBadInput || !strings.Contains(errOut, want) || strings.Contains(out, "optimal") {
+			t.Errorf("%q: exit %d, want %d; stderr lacks %q:\n%s%s", c.file, code, exitBadInput, want, out, errOut)
+		}
+	}
+	for _, b := range []string{"1e30", "Inf", "-1", "NaN"} {
+		t.Setenv("LOSSLINE_BUDGET", b)
+		code, out, errOut := runCLI(t, "plan", "../../testdata/demo")
+		if code != exitBadInput || !strings.Contains(errOut, `LOSSLINE_BUDGET: budget "`+b+`" is`) || out != "" {
+			t.Errorf("LOSSLINE_BUDGET=%s: exit %d\n%s%s", b, code, out, errOut)
+		}
+		os.Unsetenv("LOSSLINE_BUDGET")
+		code, out, errOut = runCLI(t, "plan", "../../testdata/demo", "--budget", b)
+		if code != exitUsage || !strings.Contains(errOut, `invalid argument "`+b+`" for "--budget" flag: `) || out != "" {
+			t.Errorf("--budget %s: exit %d\n%s%s", b, code, out, errOut)
+		}
+	}
+}
+
+// A budget at or above the total cost of the demo's repairs (246 650 EUR)
+// funds them all, and the plan says so rather than "optimal".
+func TestBudgetCoveringAllRepairs(t *testing.T) {
+	code, out, errOut := runCLI(t, "plan", "../../testdata/demo", "--plan-years", "1", "--budget", "246 650")
+	if code != exitOK || strings.Contains(out, "deferred") || !strings.Contains(out, "spent 246 650.") ||
+		!strings.Contains(out, "The budget covers every repair: all are funded.") {
+		t.Errorf("budget of the total: exit %d\n%s%s", code, out, errOut)
+	}
+	_, out, _ = runCLI(t, "plan", "../../testdata/demo", "--plan-years", "1", "--budget", "246 649.99")
+	if !strings.Contains(out, "deferred") || !strings.Contains(out, "Each year's selection is optimal") {
+		t.Errorf("budget a cent short of the total:\n%s", out)
+	}
+}
