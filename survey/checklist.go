@@ -51,6 +51,10 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 		survey:   &Survey{File: file, Units: MM},
 		cmlLines: map[string]int{},
 	}
+	if p := checkLimits(file, src); p != nil {
+		r.problems = append(r.problems, *p)
+		return r.survey, r.problems
+	}
 	ctx := parser.NewContext()
 	doc := markdown.Parser().Parse(text.NewReader(src), parser.WithContext(ctx))
 	r.frontMatter(ctx)

@@ -185,7 +185,3 @@ func (m Money) format(grouped bool) string {
 	}
 	return sign + whole
 }
-
-// Units is the amount in currency units, for arithmetic that needs no
-// exactness (an estimate, a ratio).
-func (m Money) Units() float64 { return float64(m) / 100 }
