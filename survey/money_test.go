@@ -152,3 +152,30 @@ func TestRepairCostRefused(t *testing.T) {
 		t.Errorf("repair cost 38 000 EUR: %v", problems)
 	}
 }
+
+// FuzzParseMoney: any text is an amount or a refusal, never a panic; an
+// amount is in range and reads back from both of its written forms.
+func FuzzParseMoney(f *testing.F) {
+	for _, s := range []string{"0", "12 000", "12_000", "1\u202f250\u2009000.50", "85.5", ".25", "1e6", "2500e-2",
+		"9 999 999 999 999.99", "10 000 000 000 000", "1e30", "-1e30", "Inf", "-Inf", "NaN", "+Infinity", "-5", "0.005",
+		"50,000", "5 0000", "1e99999999999999999999", "0e999999999999", "0x10", "38 000 EUR", "", "."} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		m, err := ParseMoney(s)
+		if c, cerr := ParseCost(s); err == nil && (cerr != nil || c != m) {
+			t.Fatalf("ParseMoney(%q) = %d but ParseCost = %d, %v", s, m, c, cerr)
+		}
+		if err != nil {
+			return
+		}
+		if m < 0 || m >= MoneyLimit {
+			t.Fatalf("ParseMoney(%q) = %d cents, out of range", s, m)
+		}
+		for _, w := range []string{m.String(), m.Plain()} {
+			if back, err := ParseMoney(w); err != nil || back != m {
+				t.Fatalf("ParseMoney(%q) = %d, written %q, reads back as %d, %v", s, m, w, back, err)
+			}
+		}
+	})
+}
