@@ -43,7 +43,8 @@ type Plan struct {
 }
 
 // Single plans one year: repairs of components at or below required first;
-// then the set of the others that removes the most risk within what is left.
+// then the set of the others that removes the most risk within what is left
+// (all of them when it covers them).
 func Single(cands []*Candidate, start time.Time, budget survey.Money) Plan {
 	return schedule(cands, start, []survey.Money{budget})
 }
@@ -52,9 +53,9 @@ func Single(cands []*Candidate, start time.Time, budget survey.Money) Plan {
 // inside the plan are placed first, in order of that date, each in the first
 // year whose remaining budget covers it; one that no year up to its deadline
 // can pay for is named with the money missing. Each year's remaining budget
-// then buys the most risk reduction among the rest, with risk recomputed at
-// the start of that year as walls keep thinning. Unspent money is not carried
-// over.
+// then buys the most risk reduction among the rest (all of them when it
+// covers them), with risk recomputed at the start of that year as walls keep
+// thinning. Unspent money is not carried over.
 func MultiYear(cands []*Candidate, start time.Time, budgets []survey.Money) Plan {
 	return schedule(cands, start, budgets)
 }
