@@ -81,11 +81,11 @@ func TestDemoGoverningCML(t *testing.T) {
 // With a budget the plan is made once, from the same ranked items.
 func TestComputeMakesThePlan(t *testing.T) {
 	f := demo(t, Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25,
-		Plan: plan.Settings{Budget: 1e6, Years: 1, Costs: plan.Costs{Currency: "units", Unit: map[string]float64{}}}})
+		Plan: plan.Settings{Budget: 1e8, Years: 1, Costs: plan.Costs{Currency: "units", Unit: map[string]survey.Money{}}}}) // 1 000 000.00
 	if f.Repairs == nil {
 		t.Fatal("no plan with a budget")
 	}
-	if len(f.Repairs.Plan.Budgets) != 1 || f.Repairs.Plan.Budgets[0] != 1e6 {
+	if len(f.Repairs.Plan.Budgets) != 1 || f.Repairs.Plan.Budgets[0] != 1e8 {
 		t.Errorf("budgets %v", f.Repairs.Plan.Budgets)
 	}
 }

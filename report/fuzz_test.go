@@ -24,7 +24,7 @@ func FuzzRenderChecklist(f *testing.F) {
 		}
 	}
 	set := findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25, Plan: plan.Settings{
-		Budget: 60000, Years: 2, Costs: plan.Costs{Currency: "EUR", Unit: map[string]float64{"pipe-m": 950}}}}
+		Budget: 6000000, Years: 2, Costs: plan.Costs{Currency: "EUR", Unit: map[string]survey.Money{"pipe-m": 95000}}}}
 	f.Fuzz(func(t *testing.T, src []byte) {
 		s, problems := survey.ParseChecklist("survey.md", src)
 		problems = append(problems, survey.ComputeRequired(s)...)

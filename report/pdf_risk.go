@@ -119,10 +119,10 @@ func (d *doc) planSection() {
 	d.newPage(false)
 	d.heading(0, "Repair plan")
 	budgets := p.Budgets
-	what := fmt.Sprintf("a budget of %s %s for one year from %s", money(budgets[0]), cur, d.s.Date.Format(dateLayout))
+	what := fmt.Sprintf("a budget of %s %s for one year from %s", budgets[0], cur, d.s.Date.Format(dateLayout))
 	if len(budgets) > 1 {
 		what = fmt.Sprintf("%d years from %s: %s %s in the first year, then %s %s a year", len(budgets), d.s.Date.Format(dateLayout),
-			money(budgets[0]), cur, money(budgets[1]), cur)
+			budgets[0], cur, budgets[1], cur)
 	}
 	d.text(fmt.Sprintf("Repairs for %s. Components with a CML at or below required come first; "+
 		"then, year by year, components whose retirement date falls inside the plan, in date order, each in the first year "+

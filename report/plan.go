@@ -7,25 +7,9 @@ import (
 	"strconv"
 	"strings"
 
+	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/plan"
 )
-
-func money(v float64) string {
-	s := strconv.FormatFloat(v, 'f', 0, 64)
-	neg := strings.HasPrefix(s, "-")
-	s = strings.TrimPrefix(s, "-")
-	var b strings.Builder
-	for i, r := range s {
-		if i > 0 && (len(s)-i)%3 == 0 {
-			b.WriteRune(' ')
-		}
-		b.WriteRune(r)
-	}
-	if neg {
-		return "-" + b.String()
-	}
-	return b.String()
-}
 
 // planRows are the funded repairs, then the deferred ones; costs grouped by
 // thousands for people, plain for CSV.
@@ -40,9 +24,9 @@ func planRows(p plan.Plan, plain bool) [][]string {
 		if c.Candidate.Deadline != nil {
 			deadline = c.Candidate.Deadline.Format(dateLayout)
 		}
-		cost := money(c.Candidate.Cost)
+		cost := c.Candidate.Cost.String()
 		if plain {
-			cost = strconv.FormatFloat(c.Candidate.Cost, 'f', -1, 64)
+			cost = c.Candidate.Cost.Plain()
 		}
 		rows = append(rows, []string{year, c.Candidate.Source, c.Candidate.Name(), cost,
 			strconv.Itoa(c.RiskBefore), strconv.Itoa(c.RiskAfter), strconv.Itoa(c.Reduction()), deadline, c.Why})
@@ -63,31 +47,52 @@ func oneSource(p plan.Plan) bool {
 }
 
 // planNotes are the plain sentences under a plan: budgets, optimality,
-// repairs that do not fit, components without a cost.
+// repairs that do not fit, costs rounded, components without a cost. A
+// selection is called optimal only when the solver proved it on the costs in
+// the table, which are exact to the cent.
 func planNotes(p plan.Plan, noCost []plan.NoCost, currency string) []string {
 	var notes []string
 	for y, b := range p.Budgets {
 		notes = append(notes, fmt.Sprintf("Year %d (from %s): budget %s %s, spent %s.", y+1,
-			p.Start.AddDate(y, 0, 0).Format(dateLayout), money(b), currency, money(p.Spent[y])))
+			p.Start.AddDate(y, 0, 0).Format(dateLayout), b, currency, p.Spent[y]))
 	}
 	if p.MandatoryOver > 0 {
+		cost, over := p.MandatoryCost.String(), p.MandatoryOver.String()
+		if p.MandatoryCost == survey.MoneySaturated {
+			cost, over = "more than "+cost, "more than "+over
+		}
 		notes = append(notes, fmt.Sprintf("The repairs of components at or below required thickness alone cost %s %s, "+
-			"%s more than the first year's budget: not all of them can be funded.", money(p.MandatoryCost), currency, money(p.MandatoryOver)))
+			"%s more than the first year's budget: not all of them can be funded.", cost, currency, over))
 	}
 	for _, s := range p.Uncovered {
 		notes = append(notes, fmt.Sprintf("%s cannot be repaired before its retirement date %s within the budgets: %s %s short.",
-			s.Candidate.Name(), s.Candidate.Deadline.Format(dateLayout), money(s.Money), currency))
+			s.Candidate.Name(), s.Candidate.Deadline.Format(dateLayout), s.Money, currency))
 	}
-	exact, gap, bound := true, 0.0, 0.0
+	exact, searched, gap, bound := true, true, 0.0, 0.0
 	for _, s := range p.Solutions {
 		exact = exact && s.Exact
+		searched = searched && s.Method != plan.MethodAll
 		gap += s.Gap()
 		bound += s.UpperBound
 	}
-	if exact {
+	switch {
+	case exact && len(p.Deferred) == 0 && len(p.Budgets) == 1:
+		notes = append(notes, "The budget covers every repair: all are funded.")
+	case exact && len(p.Deferred) == 0:
+		notes = append(notes, "The budgets cover every repair: all are funded.")
+	case exact && searched:
 		notes = append(notes, "Each year's selection is optimal (proved by dynamic programming or branch and bound).")
-	} else {
+	case exact:
+		notes = append(notes, "Each year's selection is optimal: proved by dynamic programming or branch and bound, "+
+			"or the year's budget covers every repair left to it.")
+	default:
 		notes = append(notes, fmt.Sprintf("The search stopped at its limit: the selection may miss up to %.1f of risk reduction (LP-relaxation bound %.1f).", gap, bound))
+	}
+	for _, c := range append(append([]plan.Choice{}, p.Chosen...), p.Deferred...) {
+		if c.Candidate.Rounded {
+			notes = append(notes, fmt.Sprintf("The cost of %s, %s, is rounded to the cent: %s %s.",
+				c.Candidate.Name(), c.Candidate.CostBasis, c.Candidate.Cost, currency))
+		}
 	}
 	for _, n := range noCost {
 		notes = append(notes, fmt.Sprintf("%s / %s is not in the plan: %s.", n.Asset, n.Component, n.Reason))

@@ -58,6 +58,10 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 			return r.survey, r.problems
 		}
 	}
+	if p := checkLimits(file, src); p != nil {
+		r.problems = append(r.problems, *p)
+		return r.survey, r.problems
+	}
 	r.src = r.placeholders(src)
 	r.lines = newLineIndex(r.src)
 	ctx := parser.NewContext()
@@ -468,9 +472,14 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 		return nil
 	},
 	"repair cost": func(d *Design, value string, _ Unit) error {
-		v, err := ParseAmount(value)
-		if err != nil {
+		// The number reader names the usual slips (decimal comma, NaN, a
+		// letter for a digit); the exact reading to the cent follows.
+		if _, err := number.ParseMoney(value); err != nil {
 			return fmt.Errorf("repair cost: %w", err)
+		}
+		v, err := ParseCost(value)
+		if err != nil {
+			return fmt.Errorf("repair cost: %q is %w", value, err)
 		}
 		d.RepairCost = &v
 		return nil

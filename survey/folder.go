@@ -1,6 +1,9 @@
 package survey
 
 import (
+	"errors"
+	"fmt"
+	"io"
 	"os"
 	"path"
 	"path/filepath"
@@ -51,13 +54,13 @@ func LoadWith(dir string, opt Options) (*Survey, ProblemList) {
 // loadFolder is LoadWith before its problems are sorted.
 func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
 	file := filepath.Join(dir, ChecklistFile)
-	src, err := os.ReadFile(file)
+	src, err := readChecklistFile(file)
 	if err != nil {
 		var l ProblemList
 		if os.IsNotExist(err) {
 			l.Errorf(file, 0, "no checklist: a survey folder holds survey.md (lossline new DIR writes one)")
 		} else {
-			l.Errorf(file, 0, "cannot read: %v", err)
+			l.Errorf(file, 0, "%v", err)
 		}
 		return nil, l
 	}
@@ -71,6 +74,36 @@ func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
 	problems = append(problems, photoProblems...)
 	problems = append(problems, linkPhotos(s)...)
 	return s, problems
+}
+
+// readChecklistFile reads a checklist that is a regular file of at most
+// MaxChecklistBytes, looking at its size before reading any of it (a pipe or
+// a device is refused unopened; a file growing while read stops at the limit).
+func readChecklistFile(file string) ([]byte, error) {
+	st, err := os.Stat(file)
+	switch {
+	case os.IsNotExist(err):
+		return nil, err
+	case err != nil:
+		return nil, fmt.Errorf("cannot read: %w", err)
+	case !st.Mode().IsRegular():
+		return nil, errors.New("not a regular file: the checklist must be a file")
+	case st.Size() > MaxChecklistBytes:
+		return nil, fmt.Errorf("the checklist is %d bytes, more than the %d MiB lossline reads", st.Size(), MaxChecklistBytes>>20)
+	}
+	f, err := os.Open(file)
+	if err != nil {
+		return nil, fmt.Errorf("cannot read: %w", err)
+	}
+	defer f.Close()
+	src, err := io.ReadAll(io.LimitReader(f, MaxChecklistBytes+1))
+	switch {
+	case err != nil:
+		return nil, fmt.Errorf("cannot read: %w", err)
+	case len(src) > MaxChecklistBytes:
+		return nil, fmt.Errorf("the checklist grew past the %d MiB lossline reads while being read", MaxChecklistBytes>>20)
+	}
+	return src, nil
 }
 
 // sorted sorts the problems once, at the end of a public entry point, and

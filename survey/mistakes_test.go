@@ -98,7 +98,7 @@ func TestFieldVariantsRead(t *testing.T) {
 		t.Fatalf("problems: %v", problems)
 	}
 	c := s.Assets[0].Components[0]
-	if *c.Design.NominalMM != 12.7 || *c.Design.RepairCost != 38000 || len(c.Notes) != 1 {
+	if *c.Design.NominalMM != 12.7 || *c.Design.RepairCost != Money(3800000) || len(c.Notes) != 1 {
 		t.Errorf("design %+v, notes %v", c.Design, c.Notes)
 	}
 	a := c.CMLs[0]

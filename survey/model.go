@@ -87,7 +87,7 @@ type Design struct {
 
 	// Repair for planning: a cost as written, or a quantity of a priced item
 	// of the settings; and the thickness a repair restores (nominal if nil).
-	RepairCost        *float64
+	RepairCost        *Money
 	RepairQuantity    float64
 	RepairItem        string
 	RepairThicknessMM *float64

@@ -19,7 +19,7 @@ import (
 type settingKey struct {
 	Name    string
 	Kind    kind
-	Default any    // float64, int, bool or string by Kind; nil for kindPrices
+	Default any    // float64, survey.Money, int, bool or string by Kind; nil for kindPrices
 	Help    string // flag help with the unit; a `word` names the flag's argument
 	// Check refuses a value of the right kind outside the setting's range or
 	// list, with a message that follows the setting's name; nil: any value.
@@ -71,21 +71,21 @@ var settingKeys = []settingKey{
 		Help: "`name` of the currency of repair costs and budgets", Used: planning,
 		Set: func(s *settings, v any) { s.Plan.Costs.Currency = v.(string) }},
 	{Name: "unit-costs", Kind: kindPrices,
-		Help:  "prices of repair items named in the checklists, in the currency (settings files only)",
-		Check: atLeast(0), Used: planning,
-		Set: func(s *settings, v any) { s.Plan.Costs.Unit = v.(map[string]float64) }},
-	{Name: "budget", Kind: kindMoney, Default: 0.0,
-		Help:  "repair budget of the first plan year, `amount` in the currency (0: no plan in the report)",
-		Check: atLeast(0), Used: planning,
-		Set: func(s *settings, v any) { s.Plan.Budget = v.(float64) }},
+		Help: "prices of repair items named in the checklists, in the currency (settings files only)",
+		Used: planning,
+		Set:  func(s *settings, v any) { s.Plan.Costs.Unit = v.(map[string]survey.Money) }},
+	{Name: "budget", Kind: kindMoney, Default: survey.Money(0),
+		Help: "repair budget of the first plan year, `amount` in the currency (0: no plan in the report)",
+		Used: planning,
+		Set:  func(s *settings, v any) { s.Plan.Budget = v.(survey.Money) }},
 	{Name: "plan-years", Kind: kindWhole, Default: 1,
 		Help:  "`years` the repair plan covers",
 		Check: within(1, 50, "years", true), Used: planning,
 		Set: func(s *settings, v any) { s.Plan.Years = v.(int) }},
-	{Name: "budget-per-year", Kind: kindMoney, Default: 0.0,
-		Help:  "repair budget of each later plan year, `amount` in the currency (default: the first year's)",
-		Check: atLeast(0), Used: planning,
-		Set: func(s *settings, v any) { s.Plan.PerYear = v.(float64) }},
+	{Name: "budget-per-year", Kind: kindMoney, Default: survey.Money(0),
+		Help: "repair budget of each later plan year, `amount` in the currency (default: the first year's)",
+		Used: planning,
+		Set:  func(s *settings, v any) { s.Plan.PerYear = v.(survey.Money) }},
 	{Name: "max-megapixels", Kind: kindNumber, Default: float64(survey.DefaultMaxMegapixels),
 		Help:  "photos declaring more `megapixels` are skipped before decoding",
 		Check: above(0), Used: allCommands,

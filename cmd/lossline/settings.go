@@ -8,7 +8,6 @@ import (
 	"os"
 	"path/filepath"
 	"slices"
-	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -211,20 +210,32 @@ func (k settingKey) read(text, base string) (any, string) {
 // conversions lose nothing.
 func valueOf(v *viper.Viper, k settingKey) any {
 	switch k.Kind {
-	case kindNumber, kindMoney:
+	case kindNumber:
 		return v.GetFloat64(k.Name)
+	case kindMoney:
+		return moneyOf(v.Get(k.Name))
 	case kindWhole:
 		return v.GetInt(k.Name)
 	case kindSwitch:
 		return v.GetBool(k.Name)
 	case kindPrices:
-		prices := map[string]float64{}
+		prices := map[string]survey.Money{}
 		for item, p := range v.GetStringMap(k.Name) {
-			prices[item] = p.(float64)
+			prices[item] = moneyOf(p)
 		}
 		return prices
 	}
 	return v.GetString(k.Name)
+}
+
+// moneyOf is an amount as viper holds it: the value a settings file or the
+// environment gave, or a flag's text (already read once, so it reads again).
+func moneyOf(v any) survey.Money {
+	if m, ok := v.(survey.Money); ok {
+		return m
+	}
+	m, _ := survey.ParseMoney(fmt.Sprint(v))
+	return m
 }
 
 // rows lists the setting's value for a listing of the settings used.
@@ -235,14 +246,14 @@ func (k settingKey) rows(v any, source map[string]string) []settingRow {
 		}
 		return "built in"
 	}
-	prices, ok := v.(map[string]float64)
+	prices, ok := v.(map[string]survey.Money)
 	if !ok {
 		return []settingRow{{Name: k.Name, Value: formatValue(v), Default: formatValue(k.Default), Source: from(k.Name)}}
 	}
 	var rows []settingRow
 	for _, item := range slices.Sorted(maps.Keys(prices)) {
 		key := k.Name + "." + item
-		rows = append(rows, settingRow{Name: key, Value: strconv.FormatFloat(prices[item], 'f', -1, 64), Source: from(key)})
+		rows = append(rows, settingRow{Name: key, Value: prices[item].Plain(), Source: from(key)})
 	}
 	return rows
 }

@@ -54,7 +54,7 @@ func TestSettingsFileWrongType(t *testing.T) {
 		{"budget:\n", `1: budget has no value`},
 		{"budget: [1, 2]\n", `1: budget must be a single value, not a list`},
 		{"unit-costs: 950\n", `1: unit-costs must be item: price lines`},
-		{"unit-costs:\n  pipe-m: -5\n", `2: unit-costs: pipe-m must not be negative, not -5`},
+		{"unit-costs:\n  pipe-m: -5\n", `2: unit-costs: pipe-m "-5" is negative`},
 		{"rate-model: fastest\n", `1: rate-model "fastest" is not one of long, short, max, fit`},
 		{"interval-cap-yeras: 8\n", `1: unknown setting "interval-cap-yeras"`},
 		{"budget: 1\nbudget: 2\n", `2: budget is set twice (first on line 1)`},
@@ -127,15 +127,15 @@ func TestSettingsGroupedAmounts(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if s.Plan.Budget != 50000 || s.Plan.PerYear != 45000.5 || s.Plan.Years != 2 ||
-		s.Plan.Costs.Unit["pipe-m"] != 1250 || s.Plan.Costs.Unit["recoat-m2"] != 85 {
+	if s.Plan.Budget != 50000_00 || s.Plan.PerYear != 45000_50 || s.Plan.Years != 2 ||
+		s.Plan.Costs.Unit["pipe-m"] != 1250_00 || s.Plan.Costs.Unit["recoat-m2"] != 85_00 {
 		t.Errorf("plan settings: %+v", s.Plan)
 	}
 	c = newPlanCmd()
 	if err := c.ParseFlags([]string{"--budget", "1 000 000"}); err != nil {
 		t.Fatal(err)
 	}
-	if s, err := loadSettings(c, dir); err != nil || s.Plan.Budget != 1e6 {
+	if s, err := loadSettings(c, dir); err != nil || s.Plan.Budget != 1_000_000_00 {
 		t.Errorf("--budget \"1 000 000\": %v %v", s.Plan.Budget, err)
 	}
 	// Through the command: --config's budget replaces the demo's 60 000.
@@ -163,15 +163,18 @@ func TestParseValue(t *testing.T) {
 		{kindNumber, "Inf", nil, "not a finite number"},
 		{kindNumber, "1e16", nil, "too large"},
 		{kindNumber, "1e400", nil, "too large"},
-		{kindMoney, "50 000", 50000.0, ""},
-		{kindMoney, "50\u2009000", 50000.0, ""},
-		{kindMoney, "50\u00a0000", 50000.0, ""},
-		{kindMoney, "1 250 000.75", 1250000.75, ""},
-		{kindMoney, "-1 000", -1000.0, ""}, // the range refuses it
+		{kindMoney, "50 000", survey.Money(50000_00), ""},
+		{kindMoney, "50\u2009000", survey.Money(50000_00), ""},
+		{kindMoney, "50\u00a0000", survey.Money(50000_00), ""},
+		{kindMoney, "1 250 000.75", survey.Money(1250000_75), ""},
+		{kindMoney, "1e6", survey.Money(1_000_000_00), ""},
+		{kindMoney, "-1 000", nil, "negative"},
 		{kindMoney, "5 0000", nil, "not a number (group digits"},
 		{kindMoney, "50 00", nil, "not a number (group digits"},
-		{kindMoney, "1 000 000 000 000 000", 1e15, ""},
-		{kindMoney, "10 000 000 000 000 000", nil, "too large"},
+		{kindMoney, "9 999 999 999 999.99", survey.Money(999_999_999_999_999), ""},
+		{kindMoney, "10 000 000 000 000", nil, "too large"},
+		{kindMoney, "1e30", nil, "too large"},
+		{kindMoney, "0.005", nil, "finer than a cent"},
 		{kindMoney, "nine hundred", nil, "not a number"},
 		{kindWhole, "80", 80, ""},
 		{kindWhole, "80.0", 80, ""},
@@ -356,5 +359,53 @@ func TestUsageErrors(t *testing.T) {
 	}
 	if code, out, _ := runCLI(t); code != exitOK || !strings.Contains(out, "Available Commands:") {
 		t.Errorf("lossline alone: exit %d\n%s", code, out)
+	}
+}
+
+// Budgets and prices that are not finite, negative or 10^13 and over are
+// refused where they were given: settings file and line, environment
+// variable or flag; never turned into a plan.
+func TestMoneySettingsRefusedAtTheirPlace(t *testing.T) {
+	for _, c := range []struct{ file, want string }{
+		{"budget: 1e30\n", `:1: budget "1e30" is too large (amounts of money must be under 10 000 000 000 000)`},
+		{"currency: EUR\nbudget: .inf\n", `:2: budget ".inf" is not a finite number`},
+		{"budget-per-year: NaN\n", `:1: budget-per-year "NaN" is not a finite number`},
+		{"budget: 10 000 000 000 000\n", `:1: budget "10 000 000 000 000" is too large`},
+		{"budget: 100.001\n", `:1: budget "100.001" is finer than a cent`},
+		{"unit-costs:\n  pipe-m: 950\n  recoat-m2: 1e30\n", `:3: unit-costs: recoat-m2 "1e30" is too large`},
+		{"unit-costs:\n  pipe-m: .nan\n", `:2: unit-costs: pipe-m ".nan" is not a finite number`},
+	} {
+		dir := writeSettings(t, c.file)
+		code, out, errOut := runCLI(t, "plan", "../../testdata/demo", "--config", filepath.Join(dir, SettingsFile))
+		want := filepath.Join(dir, SettingsFile) + c.want
+		if code != exitBadInput || !strings.Contains(errOut, want) || strings.Contains(out, "optimal") {
+			t.Errorf("%q: exit %d, want %d; stderr lacks %q:\n%s%s", c.file, code, exitBadInput, want, out, errOut)
+		}
+	}
+	for _, b := range []string{"1e30", "Inf", "-1", "NaN"} {
+		t.Setenv("LOSSLINE_BUDGET", b)
+		code, out, errOut := runCLI(t, "plan", "../../testdata/demo")
+		if code != exitBadInput || !strings.Contains(errOut, `LOSSLINE_BUDGET: budget "`+b+`" is`) || out != "" {
+			t.Errorf("LOSSLINE_BUDGET=%s: exit %d\n%s%s", b, code, out, errOut)
+		}
+		os.Unsetenv("LOSSLINE_BUDGET")
+		code, out, errOut = runCLI(t, "plan", "../../testdata/demo", "--budget", b)
+		if code != exitUsage || !strings.Contains(errOut, `invalid argument "`+b+`" for "--budget" flag: `) || out != "" {
+			t.Errorf("--budget %s: exit %d\n%s%s", b, code, out, errOut)
+		}
+	}
+}
+
+// A budget at or above the total cost of the demo's repairs (246 650 EUR)
+// funds them all, and the plan says so rather than "optimal".
+func TestBudgetCoveringAllRepairs(t *testing.T) {
+	code, out, errOut := runCLI(t, "plan", "../../testdata/demo", "--plan-years", "1", "--budget", "246 650")
+	if code != exitOK || strings.Contains(out, "deferred") || !strings.Contains(out, "spent 246 650.") ||
+		!strings.Contains(out, "The budget covers every repair: all are funded.") {
+		t.Errorf("budget of the total: exit %d\n%s%s", code, out, errOut)
+	}
+	_, out, _ = runCLI(t, "plan", "../../testdata/demo", "--plan-years", "1", "--budget", "246 649.99")
+	if !strings.Contains(out, "deferred") || !strings.Contains(out, "Each year's selection is optimal") {
+		t.Errorf("budget a cent short of the total:\n%s", out)
 	}
 }

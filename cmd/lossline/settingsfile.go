@@ -3,6 +3,7 @@ package main
 import (
 	"errors"
 	"fmt"
+	"io"
 	"io/fs"
 	"os"
 	"path/filepath"
@@ -25,9 +26,9 @@ type fileSettings struct {
 // every value of its setting's kind and range; the problems name file:line.
 func readSettingsFile(path string) (fileSettings, settingProblems) {
 	out := fileSettings{Values: map[string]any{}, Places: map[string]string{}}
-	data, err := os.ReadFile(path)
-	if err != nil {
-		return out, settingProblems{{Where: path, Msg: readFailure(err)}}
+	data, why := readSmallFile(path)
+	if why != "" {
+		return out, settingProblems{{Where: path, Msg: why}}
 	}
 	var doc yaml.Node
 	if err := yaml.Unmarshal(data, &doc); err != nil {
@@ -39,7 +40,9 @@ func readSettingsFile(path string) (fileSettings, settingProblems) {
 	}
 	top := resolveAlias(doc.Content[0])
 	if top.Kind != yaml.MappingNode {
-		return out, settingProblems{{Where: path, Line: top.Line, Msg: "settings must be key: value lines"}}
+		// An empty document after --- is placed on the line after the file's last.
+		line := min(top.Line, yamlLines(data))
+		return out, settingProblems{{Where: path, Line: line, Msg: "settings must be key: value lines"}}
 	}
 	var problems settingProblems
 	add := func(n *yaml.Node, format string, args ...any) {
@@ -139,6 +142,13 @@ func resolveAlias(n *yaml.Node) *yaml.Node {
 	return n
 }
 
+// yamlLines is the number of lines of data as YAML counts them: lines end at
+// CR LF, CR, LF, NEL, LS or PS (YAML 1.1 §5.4, line break characters).
+func yamlLines(data []byte) int {
+	s := strings.NewReplacer("\r\n", "\n", "\r", "\n", "\u0085", "\n", "\u2028", "\n", "\u2029", "\n").Replace(string(data))
+	return strings.Count(s, "\n") + 1
+}
+
 // place is file:line.
 func place(path string, line int) string { return path + ":" + strconv.Itoa(line) }
 
@@ -154,6 +164,38 @@ func yamlFailure(err error) (int, string) {
 		return line, m[2]
 	}
 	return 0, strings.TrimPrefix(msg, "yaml: ")
+}
+
+// maxSettingsBytes is the largest settings file read; a real one is a few
+// hundred bytes.
+const maxSettingsBytes = 1 << 20
+
+// readSmallFile reads a settings file after checking from its size and type
+// that reading ends (a pipe or a device would block or never end), or says
+// in words why it cannot.
+func readSmallFile(path string) ([]byte, string) {
+	st, err := os.Stat(path)
+	switch {
+	case err != nil:
+		return nil, readFailure(err)
+	case !st.Mode().IsRegular():
+		return nil, "settings file cannot be read: not a regular file"
+	case st.Size() > maxSettingsBytes:
+		return nil, fmt.Sprintf("settings file is %d bytes, more than the %d MiB lossline reads", st.Size(), maxSettingsBytes>>20)
+	}
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, readFailure(err)
+	}
+	defer f.Close()
+	data, err := io.ReadAll(io.LimitReader(f, maxSettingsBytes+1))
+	switch {
+	case err != nil:
+		return nil, readFailure(err)
+	case len(data) > maxSettingsBytes:
+		return nil, fmt.Sprintf("settings file grew past the %d MiB lossline reads while being read", maxSettingsBytes>>20)
+	}
+	return data, ""
 }
 
 // readFailure says in words why a file could not be read.

@@ -7,6 +7,8 @@ import (
 	"regexp"
 	"strconv"
 	"strings"
+
+	"github.com/lossline/lossline/survey"
 )
 
 // kind is how a setting's text is read.
@@ -14,7 +16,7 @@ type kind int
 
 const (
 	kindNumber kind = iota // a decimal number: 0.28, 10, 1e3
-	kindMoney              // an amount; digits may be grouped by spaces: 50 000
+	kindMoney              // an amount of money (survey.Money); digits may be grouped by spaces: 50 000
 	kindWhole              // a whole number
 	kindSwitch             // true or false
 	kindText               // any text
@@ -26,24 +28,19 @@ const (
 // up to 2^53 (about 9.007e15), and no budget or other setting comes near 1e15.
 const maxMagnitude = 1e15
 
-var (
-	decimalNumber = regexp.MustCompile(`^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$`)
-	// groupedAmount is an amount with its digits grouped in threes by
-	// spaces, no-break spaces or (narrow) thin spaces: 1 250 000.50.
-	groupedAmount = regexp.MustCompile(`^[+-]?\d{1,3}([ \x{00A0}\x{2009}\x{202F}]\d{3})+(\.\d*)?$`)
-	digitsOnly    = regexp.MustCompile(`^[+-]?[\d., \x{00A0}\x{2009}\x{202F}]+$`)
-	groupSpaces   = strings.NewReplacer(" ", "", "\u00a0", "", "\u2009", "", "\u202f", "")
-)
+var decimalNumber = regexp.MustCompile(`^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$`)
 
-// parseValue reads text as a value of kind k: float64, int, bool or string.
-// Its error completes "value is ...", in words for the user.
+// parseValue reads text as a value of kind k: float64, survey.Money, int,
+// bool or string. Its error completes "value is ...", in words for the user.
 func parseValue(k kind, text string) (any, error) {
 	t := strings.TrimSpace(text)
 	switch k {
-	case kindNumber, kindMoney:
-		return parseNumber(t, k == kindMoney)
+	case kindNumber:
+		return parseNumber(t)
+	case kindMoney:
+		return survey.ParseMoney(t)
 	case kindWhole:
-		x, err := parseNumber(t, false)
+		x, err := parseNumber(t)
 		if err != nil {
 			return nil, err
 		}
@@ -65,18 +62,13 @@ func parseValue(k kind, text string) (any, error) {
 	return text, nil
 }
 
-// parseNumber reads a decimal number; for an amount, digits may be grouped.
-func parseNumber(t string, amount bool) (float64, error) {
-	if amount && groupedAmount.MatchString(t) {
-		t = groupSpaces.Replace(t)
-	}
+// parseNumber reads a decimal number.
+func parseNumber(t string) (float64, error) {
 	if !decimalNumber.MatchString(t) {
 		low := strings.ToLower(t)
 		switch {
 		case strings.Contains(low, "inf") || strings.Contains(low, "nan"):
 			return 0, errors.New("not a finite number")
-		case amount && digitsOnly.MatchString(t):
-			return 0, errors.New("not a number (group digits in threes by spaces and write decimals with a point: 50 000.50)")
 		case strings.Contains(t, ","):
 			return 0, errors.New("not a number (write decimals with a point: 0.28)")
 		}
@@ -96,6 +88,8 @@ func formatValue(v any) string {
 		return ""
 	case float64:
 		return strconv.FormatFloat(x, 'f', -1, 64)
+	case survey.Money:
+		return x.Plain()
 	case int:
 		return strconv.Itoa(x)
 	case bool:
@@ -133,8 +127,10 @@ func (f *flagValue) Set(text string) error {
 // Type names the value as pflag's own flags do, so help and viper treat it alike.
 func (f *flagValue) Type() string {
 	switch f.kind {
-	case kindNumber, kindMoney:
+	case kindNumber:
 		return "float64"
+	case kindMoney:
+		return "amount"
 	case kindWhole:
 		return "int"
 	case kindSwitch:

@@ -12,7 +12,7 @@ import (
 // Costs are the repair prices of the settings.
 type Costs struct {
 	Currency string
-	Unit     map[string]float64 // price per unit of a named repair item ("recoat-m2": 85)
+	Unit     map[string]survey.Money // price per unit of a named repair item ("recoat-m2": 85)
 }
 
 // Candidate is one component's repair: what it costs, by when it must be done
@@ -21,8 +21,9 @@ type Candidate struct {
 	Source    string // survey title, to tell assets of several surveys apart
 	Asset     string
 	Component *survey.Component
-	Cost      float64
-	CostBasis string
+	Cost      survey.Money
+	CostBasis string  // "as written", or quantity × unit price
+	Rounded   bool    // quantity × unit price was rounded to the cent
 	ResetMM   float64 // thickness its CMLs have after the repair
 	Deadline  *time.Time
 	Mandatory bool // a CML is at or below required now
@@ -48,7 +49,7 @@ func Candidates(source string, items []*survey.Assessed, costs Costs) ([]*Candid
 		c := byComp[it.Component]
 		if c == nil {
 			d := it.Component.Design
-			cost, basis, err := costOf(d, costs)
+			cost, basis, rounded, err := costOf(it.Component, costs)
 			if err != nil {
 				missing = append(missing, NoCost{source, it.Asset.Name, it.Component.Name, err.Error()})
 				byComp[it.Component] = &Candidate{} // mark as seen
@@ -61,7 +62,7 @@ func Candidates(source string, items []*survey.Assessed, costs Costs) ([]*Candid
 			case d.NominalMM != nil:
 				reset = *d.NominalMM
 			}
-			c = &Candidate{Source: source, Asset: it.Asset.Name, Component: it.Component, Cost: cost, CostBasis: basis, ResetMM: reset}
+			c = &Candidate{Source: source, Asset: it.Asset.Name, Component: it.Component, Cost: cost, CostBasis: basis, Rounded: rounded, ResetMM: reset}
 			byComp[it.Component] = c
 			out = append(out, c)
 		}
@@ -80,18 +81,27 @@ func Candidates(source string, items []*survey.Assessed, costs Costs) ([]*Candid
 	return out, missing
 }
 
-func costOf(d survey.Design, costs Costs) (float64, string, error) {
+// costOf is a component's repair cost: as written, or its quantity × the
+// unit price of the settings, rounded to the cent (rounded says so). A cost
+// that cannot be worked out is an error naming the checklist line.
+func costOf(comp *survey.Component, costs Costs) (cost survey.Money, basis string, rounded bool, err error) {
+	d := comp.Design
 	switch {
 	case d.RepairCost != nil:
-		return *d.RepairCost, "as written", nil
+		return *d.RepairCost, "as written", false, nil
 	case d.RepairItem != "":
 		price, ok := costs.Unit[d.RepairItem]
 		if !ok {
-			return 0, "", fmt.Errorf("no unit cost %q in the settings", d.RepairItem)
+			return 0, "", false, fmt.Errorf("no unit cost %q in the settings", d.RepairItem)
 		}
-		return d.RepairQuantity * price, fmt.Sprintf("%g %s × %g", d.RepairQuantity, d.RepairItem, price), nil
+		basis = fmt.Sprintf("%g %s × %s", d.RepairQuantity, d.RepairItem, price)
+		cost, rounded, err = price.Times(d.RepairQuantity)
+		if err != nil {
+			return 0, "", false, fmt.Errorf("%s:%d: repair %s: the cost is %w", comp.File, d.Lines["repair"], basis, err)
+		}
+		return cost, basis, rounded, nil
 	}
-	return 0, "", fmt.Errorf("no repair cost in the checklist")
+	return 0, "", false, fmt.Errorf("no repair cost in the checklist")
 }
 
 // RiskAt is the candidate's total risk score (Σ likelihood × consequence of

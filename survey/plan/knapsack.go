@@ -1,12 +1,15 @@
 package plan
 
 import (
+	"cmp"
+	"math"
+	"math/bits"
 	"slices"
 	"sort"
 )
 
-// Item is one candidate repair for the knapsack: its cost in whole currency
-// units and the risk reduction it buys.
+// Item is one candidate repair for the knapsack: its cost (0 or more, in
+// cents) and the risk reduction it buys.
 type Item struct {
 	Cost  int64
 	Value int64
@@ -18,9 +21,16 @@ type Solution struct {
 	Value      int64
 	Cost       int64
 	UpperBound float64 // the LP-relaxation bound on the best value
-	Exact      bool    // proved optimal
-	Method     string  // "dynamic programming" or "branch and bound"
+	Exact      bool    // proved optimal on the costs and values given
+	Method     string  // MethodAll, MethodDP or MethodBB
 }
+
+// Methods of a Solution.
+const (
+	MethodAll = "all within the budget" // the budget covers every item: no search (takeAll)
+	MethodDP  = "dynamic programming"
+	MethodBB  = "branch and bound"
+)
 
 // Gap is how much value the solution may miss, from the LP bound (0 when exact).
 func (s Solution) Gap() float64 {
@@ -40,7 +50,8 @@ const (
 // Solve chooses items of total cost at most budget with the largest total
 // value (0/1 knapsack). It uses dynamic programming over the budget (in units
 // of the costs' greatest common divisor) when that table is small enough, and
-// depth-first branch and bound with the Dantzig (LP) bound otherwise.
+// depth-first branch and bound with the Dantzig (LP) bound otherwise. Costs
+// are used as given, never scaled or rounded, so Exact is a proof on them.
 func Solve(items []Item, budget int64) Solution {
 	var idx []int
 	var sol Solution
@@ -61,7 +72,9 @@ func Solve(items []Item, budget int64) Solution {
 		g = gcd(g, items[i].Cost)
 	}
 	var sub Solution
-	if g > 0 && int64(len(idx))*(budget/g+1) <= dpCellLimit {
+	// The table has len(idx) × (budget/g + 1) cells; compared by division,
+	// which cannot overflow.
+	if g > 0 && (len(idx) == 0 || budget/g < dpCellLimit/int64(len(idx))) {
 		sub = solveDP(items, idx, budget, g)
 	} else {
 		sub = solveBB(items, idx, budget)
@@ -79,19 +92,39 @@ func Solve(items []Item, budget int64) Solution {
 	return sol
 }
 
-// sortByRatio orders items by value per cost, best first (ties: cheaper first).
+// takeAll is every item, whatever its value: the budget covers them all.
+func takeAll(items []Item) Solution {
+	sol := Solution{Exact: true, Method: MethodAll}
+	for i, it := range items {
+		sol.Chosen = append(sol.Chosen, i)
+		sol.Value += max(it.Value, 0)
+		sol.Cost += it.Cost
+	}
+	sol.UpperBound = float64(sol.Value)
+	return sol
+}
+
+// sortByRatio orders items by value per cost, best first (ties: cheaper
+// first). Values and costs are positive; the cross products are compared in
+// 128 bits, so no product overflows.
 func sortByRatio(items []Item, idx []int) []int {
 	slices.SortStableFunc(idx, func(a, b int) int {
-		l, r := items[a].Value*items[b].Cost, items[b].Value*items[a].Cost
-		switch {
-		case l > r:
-			return -1
-		case l < r:
-			return 1
+		lh, ll := bits.Mul64(uint64(items[a].Value), uint64(items[b].Cost))
+		rh, rl := bits.Mul64(uint64(items[b].Value), uint64(items[a].Cost))
+		if c := cmp.Or(cmp.Compare(rh, lh), cmp.Compare(rl, ll)); c != 0 {
+			return c
 		}
-		return int(items[a].Cost - items[b].Cost)
+		return cmp.Compare(items[a].Cost, items[b].Cost)
 	})
 	return idx
+}
+
+// addCapped is a + b for a, b of 0 or more, at most math.MaxInt64.
+func addCapped(a, b int64) int64 {
+	if a > math.MaxInt64-b {
+		return math.MaxInt64
+	}
+	return a + b
 }
 
 func gcd(a, b int64) int64 {
@@ -133,7 +166,7 @@ func solveDP(items []Item, idx []int, budget, unit int64) Solution {
 			}
 		}
 	}
-	sol := Solution{Value: best[w], Exact: true, Method: "dynamic programming"}
+	sol := Solution{Value: best[w], Exact: true, Method: MethodDP}
 	cap := w
 	for k := len(idx) - 1; k >= 0; k-- {
 		if take[k][cap/64]&(1<<(cap%64)) != 0 {
@@ -160,9 +193,12 @@ func solveBB(items []Item, idx []int, budget int64) Solution {
 		}
 	}
 	// Prefix sums in ratio order make the Dantzig bound a binary search.
+	// Cost sums are capped at math.MaxInt64: a capped difference is at most
+	// the true one, so the bound can only come out higher, which keeps it a
+	// bound (it prunes less, never wrongly).
 	pc, pv := make([]int64, n+1), make([]int64, n+1)
 	for k, i := range idx {
-		pc[k+1], pv[k+1] = pc[k]+items[i].Cost, pv[k]+items[i].Value
+		pc[k+1], pv[k+1] = addCapped(pc[k], items[i].Cost), pv[k]+items[i].Value
 	}
 	bound := func(k int, capacity int64) float64 {
 		// b: the first item from k that does not fit with all before it.
@@ -200,7 +236,7 @@ func solveBB(items []Item, idx []int, budget int64) Solution {
 		dfs(k+1, capacity, value)
 	}
 	dfs(0, budget, 0)
-	sol := Solution{Value: bestVal, Exact: exact, Method: "branch and bound"}
+	sol := Solution{Value: bestVal, Exact: exact, Method: MethodBB}
 	for k, in := range bestSet {
 		if in {
 			sol.Chosen = append(sol.Chosen, idx[k])

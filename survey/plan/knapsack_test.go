@@ -183,3 +183,44 @@ func TestSolveHardWithinTime(t *testing.T) {
 
 // BenchmarkSolve5000Hard: the strongly correlated instance.
 func BenchmarkSolve5000Hard(b *testing.B) { benchLarge(b, hardInstance()) }
+
+// Costs near the money limit (10^15 cents) with large values: the ratio order
+// compares products beyond int64 and both methods must still match brute force.
+func TestSolveLargeMagnitudes(t *testing.T) {
+	rng := rand.New(rand.NewPCG(5, 8))
+	for trial := 0; trial < 200; trial++ {
+		n := 1 + rng.IntN(12)
+		items := make([]Item, n)
+		var total int64
+		for i := range items {
+			items[i] = Item{Cost: 1 + rng.Int64N(999_999_999_999_999), Value: 1 + rng.Int64N(1_000_000)}
+			total += items[i].Cost
+		}
+		budget := rng.Int64N(total/2 + 1)
+		want := bruteForce(items, budget)
+		s := Solve(items, budget)
+		checkFeasible(t, items, budget, s)
+		if s.Value != want || !s.Exact {
+			t.Fatalf("trial %d (%s): value %d exact %v, brute force %d", trial, s.Method, s.Value, s.Exact, want)
+		}
+	}
+}
+
+// More items than int64 can add up the costs of: branch and bound's prefix
+// sums are capped and its result is still the proved optimum. Every cost is
+// equal, so the best five are the five largest values.
+func TestSolveCostsBeyondInt64(t *testing.T) {
+	const cost = 999_999_999_999_999
+	items := make([]Item, 12_000) // 1.2 × 10^19 cents in all
+	idx := make([]int, len(items))
+	for i := range items {
+		items[i] = Item{Cost: cost, Value: int64(1 + i%1000)}
+		idx[i] = i
+	}
+	budget := int64(5 * cost)
+	for _, s := range []Solution{Solve(items, budget), solveBB(items, sortByRatio(items, idx), budget)} {
+		if s.Value != 5*1000 || !s.Exact {
+			t.Errorf("%s: value %d exact %v, want 5000 exact", s.Method, s.Value, s.Exact)
+		}
+	}
+}

@@ -5,6 +5,7 @@ import (
 	"slices"
 	"time"
 
+	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
@@ -23,42 +24,44 @@ func (c Choice) Reduction() int { return c.RiskBefore - c.RiskAfter }
 // Shortfall is a component whose repair no budget up to its deadline covers.
 type Shortfall struct {
 	Candidate *Candidate
-	Money     float64 // what the best year before the deadline lacks
+	Money     survey.Money // what the best year before the deadline lacks
 }
 
 // Plan is the repairs funded year by year and what is left over.
 type Plan struct {
 	Start     time.Time
-	Budgets   []float64 // per plan year
-	Spent     []float64
+	Budgets   []survey.Money // per plan year
+	Spent     []survey.Money
 	Chosen    []Choice
 	Deferred  []Choice
 	Uncovered []Shortfall
 	// MandatoryCost is the cost of repairs at or below required; over the
-	// first year's budget by MandatoryOver (0 when they fit).
-	MandatoryCost, MandatoryOver float64
+	// first year's budget by MandatoryOver (0 when they fit). A cost too
+	// large to add up is survey.MoneySaturated.
+	MandatoryCost, MandatoryOver survey.Money
 	Solutions                    []Solution // the knapsack of each year
 }
 
 // Single plans one year: repairs of components at or below required first;
-// then the set of the others that removes the most risk within what is left.
-func Single(cands []*Candidate, start time.Time, budget float64) Plan {
-	return schedule(cands, start, []float64{budget})
+// then the set of the others that removes the most risk within what is left
+// (all of them when it covers them).
+func Single(cands []*Candidate, start time.Time, budget survey.Money) Plan {
+	return schedule(cands, start, []survey.Money{budget})
 }
 
 // MultiYear plans len(budgets) years. Components whose retirement date falls
 // inside the plan are placed first, in order of that date, each in the first
 // year whose remaining budget covers it; one that no year up to its deadline
 // can pay for is named with the money missing. Each year's remaining budget
-// then buys the most risk reduction among the rest, with risk recomputed at
-// the start of that year as walls keep thinning. Unspent money is not carried
-// over.
-func MultiYear(cands []*Candidate, start time.Time, budgets []float64) Plan {
+// then buys the most risk reduction among the rest (all of them when it
+// covers them), with risk recomputed at the start of that year as walls keep
+// thinning. Unspent money is not carried over.
+func MultiYear(cands []*Candidate, start time.Time, budgets []survey.Money) Plan {
 	return schedule(cands, start, budgets)
 }
 
-func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
-	p := Plan{Start: start, Budgets: budgets, Spent: make([]float64, len(budgets))}
+func schedule(cands []*Candidate, start time.Time, budgets []survey.Money) Plan {
+	p := Plan{Start: start, Budgets: budgets, Spent: make([]survey.Money, len(budgets))}
 	years := len(budgets)
 	left := slices.Clone(budgets)
 	done := map[*Candidate]bool{}
@@ -74,14 +77,14 @@ func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
 	// Repairs at or below required come first, in year 1.
 	for _, c := range cands {
 		if c.Mandatory {
-			p.MandatoryCost += c.Cost
+			p.MandatoryCost = p.MandatoryCost.Add(c.Cost)
 		}
 	}
 	p.MandatoryOver = max(p.MandatoryCost-left[0], 0)
 
 	// The first year's money goes to repairs at or below required before any
 	// deadline placement.
-	reserve := func(y int) float64 {
+	reserve := func(y int) survey.Money {
 		if y == 1 {
 			return min(p.MandatoryCost, left[0])
 		}
@@ -107,9 +110,9 @@ func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
 			}
 		}
 		if !placed {
-			best := 0.0
+			var best survey.Money
 			for y := 1; y <= k; y++ {
-				best = math.Max(best, left[y-1]-reserve(y))
+				best = max(best, left[y-1]-reserve(y))
 			}
 			p.Uncovered = append(p.Uncovered, Shortfall{Candidate: c, Money: c.Cost - best})
 		}
@@ -129,9 +132,9 @@ func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
 				pool = append(pool, c)
 			}
 		}
-		var need float64
+		var need survey.Money
 		for _, c := range urgent {
-			need += c.Cost
+			need = need.Add(c.Cost)
 		}
 		if need > left[y-1] {
 			sol := solveYear(urgent, left[y-1], yearStart(y))
@@ -162,14 +165,20 @@ func schedule(cands []*Candidate, start time.Time, budgets []float64) Plan {
 }
 
 // solveYear runs the knapsack on a year's candidates, valued by the risk each
-// removes at that date; money in whole currency units (costs rounded up).
-func solveYear(pool []*Candidate, budget float64, at time.Time) Solution {
+// removes at that date, on their exact costs in cents. A budget that covers
+// every candidate funds them all, those that remove no risk too.
+func solveYear(pool []*Candidate, budget survey.Money, at time.Time) Solution {
 	items := make([]Item, len(pool))
+	var total survey.Money
 	for i, c := range pool {
 		before, after := c.RiskAt(at)
-		items[i] = Item{Cost: int64(math.Ceil(c.Cost)), Value: int64(before - after)}
+		items[i] = Item{Cost: int64(c.Cost), Value: int64(before - after)}
+		total = total.Add(c.Cost)
 	}
-	return Solve(items, int64(math.Floor(budget)))
+	if total <= budget {
+		return takeAll(items)
+	}
+	return Solve(items, int64(budget))
 }
 
 // deadlineYear is the plan year (1-based) in which a date falls; dates before

@@ -1,20 +1,24 @@
 package plan
 
-import "time"
+import (
+	"time"
+
+	"github.com/lossline/lossline/survey"
+)
 
 // Settings ask for a repair plan: the first year's budget, then the budget of
 // each later year, in the currency of Costs.
 type Settings struct {
-	Budget  float64
-	PerYear float64 // years 2..Years; Budget when 0
-	Years   int     // 1 for a single-year plan
+	Budget  survey.Money
+	PerYear survey.Money // years 2..Years; Budget when 0
+	Years   int          // 1 for a single-year plan
 	Costs   Costs
 }
 
 // Budgets lists the budget of each plan year.
-func (s Settings) Budgets() []float64 {
+func (s Settings) Budgets() []survey.Money {
 	years := max(s.Years, 1)
-	out := make([]float64, years)
+	out := make([]survey.Money, years)
 	for i := range out {
 		out[i] = s.Budget
 		if i > 0 && s.PerYear > 0 {
