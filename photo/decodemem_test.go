@@ -43,7 +43,7 @@ func TestPrepareMemoryWithinEstimate(t *testing.T) {
 		var before, after runtime.MemStats
 		runtime.GC()
 		runtime.ReadMemStats(&before)
-		p, err := prepare(c.data, 6, Settings{LongSide: 1600, Quality: 80})
+		p, err := prepare(c.data, l, 6, Settings{LongSide: 1600, Quality: 80})
 		runtime.ReadMemStats(&after)
 		if err != nil || max(p.Width, p.Height) != min(1600, max(l.width, l.height)) {
 			t.Fatalf("%s: %d×%d, %v", c.name, p.Width, p.Height, err)

@@ -3,6 +3,7 @@ package photo
 import (
 	"bufio"
 	"bytes"
+	"image/jpeg"
 	"os"
 	"path/filepath"
 	"strings"
@@ -111,5 +112,24 @@ func TestLayoutEnds(t *testing.T) {
 		if _, err := ScanBytes(c.data, 200); err == nil || !strings.Contains(err.Error(), c.want) || !strings.HasPrefix(err.Error(), "not a readable JPEG") {
 			t.Errorf("%s: %v, want not a readable JPEG: …%s", c.name, err, c.want)
 		}
+	}
+}
+
+// A baseline file coding its components in separate scans is decoded by
+// image/jpeg in either build (libjpeg-turbo would keep all its coefficients):
+// the flat mid-grey picture comes out flat mid-grey.
+func TestPrepareScanPerComponent(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "three-scans.jpg")
+	os.WriteFile(path, jpegscans.Sequential(320, 240, jpegscans.YCbCr420, 3), 0o644)
+	p, err := Prepare(path, 1, Settings{LongSide: 160, Quality: 90})
+	if err != nil || p.Width != 160 || p.Height != 120 {
+		t.Fatalf("%d×%d, %v; want 160×120", p.Width, p.Height, err)
+	}
+	img, err := jpeg.Decode(bytes.NewReader(p.JPEG))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r, g, b, _ := img.At(80, 60).RGBA(); r>>8 < 120 || r>>8 > 136 || g>>8 < 120 || g>>8 > 136 || b>>8 < 120 || b>>8 > 136 {
+		t.Errorf("centre %d,%d,%d, want mid-grey", r>>8, g>>8, b>>8)
 	}
 }

@@ -36,10 +36,11 @@ func Prepare(path string, orientation int, s Settings) (Prepared, error) {
 	if err != nil {
 		return Prepared{}, err
 	}
-	if _, err := decodableLayout(data); err != nil {
+	l, err := decodableLayout(data)
+	if err != nil {
 		return Prepared{}, err
 	}
-	return prepare(data, orientation, s)
+	return prepare(data, l, orientation, s)
 }
 
 // decodableLayout reads the layout of a JPEG in memory and says why it is not
@@ -52,18 +53,27 @@ func decodableLayout(data []byte) (*layout, error) {
 	return l, l.decodable()
 }
 
-// prepare is Prepare on a file's content that passed decodableLayout.
-func prepare(data []byte, orientation int, s Settings) (p Prepared, err error) {
+// prepare is Prepare on a file's content that passed decodableLayout, l its
+// layout. libjpeg-turbo takes single-scan files only: for several scans it
+// keeps every coefficient of the image (2 bytes a sample, outside the Go heap
+// and its estimate), where image/jpeg decodes each baseline scan straight to
+// pixels.
+func prepare(data []byte, l *layout, orientation int, s Settings) (p Prepared, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			err = fmt.Errorf("cannot decode: %v", r)
 		}
 	}()
 	var src image.Image
-	if y, ok := fastDecode(data, s.LongSide); ok {
-		src = y
-	} else if src, err = jpeg.Decode(bytes.NewReader(data)); err != nil {
-		return p, fmt.Errorf("cannot decode: %w", err)
+	if l.scans == 1 {
+		if y, ok := fastDecode(data, s.LongSide); ok {
+			src = y
+		}
+	}
+	if src == nil {
+		if src, err = jpeg.Decode(bytes.NewReader(data)); err != nil {
+			return p, fmt.Errorf("cannot decode: %w", err)
+		}
 	}
 	sb := src.Bounds()
 	w, h := fitLongSide(sb.Dx(), sb.Dy(), s.LongSide)

@@ -118,7 +118,7 @@ func prepareCached(src Source, s Settings, budget *memoryBudget) result {
 		return result{err: err}
 	}
 	held := budget.acquire(int64(len(data)) + l.prepareBytes(s.LongSide))
-	p, err := prepare(data, src.Orientation, s)
+	p, err := prepare(data, l, src.Orientation, s)
 	budget.release(held)
 	if err == nil && path != "" {
 		storeCached(path, p.JPEG) // a cache that cannot be written only costs time
