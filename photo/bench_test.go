@@ -1,7 +1,6 @@
 package photo
 
 import (
-	"fmt"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -22,8 +21,12 @@ func benchPhotos(b *testing.B, n int) []Source {
 		b.Fatal(err)
 	}
 	var photos []Source
-	for i, p := range paths {
-		photos = append(photos, Source{Path: p, Orientation: 1, Hash: fmt.Sprint(i)})
+	for _, p := range paths {
+		h, err := Scan(p, 200)
+		if err != nil {
+			b.Fatal(err)
+		}
+		photos = append(photos, Source{Path: p, Orientation: 1, Hash: h.Hash})
 	}
 	return photos
 }

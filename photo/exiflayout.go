@@ -1,25 +1,36 @@
 package photo
 
 import (
-	"bytes"
 	"encoding/binary"
-	"errors"
 	"fmt"
-	"math"
 )
 
-// checkEXIFLayout walks the EXIF directories of a JPEG the way goexif
-// (v0.0.0-20190401172101) reads them and refuses the two damaged layouts it
-// cannot survive: a tag whose type size × count needs more than 32 bits
-// (goexif computes the length in 32 bits, reads the wrapped short value and
-// then allocates by the count: gigabytes, a fatal out-of-memory that recover
-// cannot catch), and a chain of directories that loops (goexif notices only a
-// directory naming itself as the next, and otherwise reads on without end).
-// Other damage is left to goexif, which reports it as an error.
-func checkEXIFLayout(jpegData []byte) error {
-	t := exifTIFF(jpegData)
+// Limits of the EXIF structure handed to goexif. A camera writes five
+// directories (IFD0, the Exif, GPS and interoperability directories, IFD1 for
+// the thumbnail) of a few dozen entries each (CIPA DC-008, Exif 2.3, 4.6).
+const (
+	maxEXIFDirs    = 10
+	maxEXIFEntries = 1000
+	// Tag values out of line together at most this many times the block: in
+	// a sound block they do not overlap, so they add up to less than it;
+	// goexif copies each value out, so values that all point at the same
+	// bytes would multiply its memory by the number of entries.
+	maxEXIFValueShare = 4
+)
+
+// checkEXIF walks the TIFF structure of an EXIF block (TIFF 6.0, section 2)
+// before goexif reads it and refuses a block that could make goexif loop,
+// exhaust memory or read outside it: directories reached twice (a loop),
+// more than maxEXIFDirs directories or maxEXIFEntries entries in one, a
+// directory or a tag value that does not fit in the block (a count whose
+// size overflows included), values that together exceed maxEXIFValueShare
+// times the block. It follows what goexif follows: the chain of directories
+// from the header, and the Exif, GPS and interoperability directories any of
+// them names. The block is at most 64 KiB (one APP1 segment), so the walk is
+// bounded too.
+func checkEXIF(t []byte) error {
 	if len(t) < 8 {
-		return nil
+		return damagedEXIF("too short for a TIFF header")
 	}
 	var order binary.ByteOrder
 	switch string(t[:2]) {
@@ -28,143 +39,98 @@ func checkEXIFLayout(jpegData []byte) error {
 	case "MM":
 		order = binary.BigEndian
 	default:
-		return nil
+		return damagedEXIF("no TIFF byte order")
 	}
-	if int16(order.Uint16(t[2:])) != 42 {
-		return nil
+	if order.Uint16(t[2:]) != 42 {
+		return damagedEXIF("no TIFF header")
 	}
-	// The chain from the header. A directory goexif cannot read ends its work
-	// on the file, before any sub-directory.
-	var pointers []int64
-	seen := map[int64]bool{}
-	for off := int64(int32(order.Uint32(t[4:]))); off != 0; {
-		if seen[off] {
-			return errors.New("damaged EXIF header: its directories form a loop")
-		}
-		seen[off] = true
-		dir, ok, err := readIFD(t, order, off)
-		if err != nil || !ok || dir.next == off {
-			return err
-		}
-		pointers = append(pointers, dir.pointers...)
-		off = dir.next
+	type dirRef struct {
+		off   uint32
+		chain bool // in the chain from the header: its next directory is read too
 	}
-	// goexif reads the Exif, GPS and interoperability sub-directories, each
-	// without its chain; following every such pointer from every directory
-	// covers them.
-	for len(pointers) > 0 {
-		off := pointers[0]
-		pointers = pointers[1:]
-		if seen[off] {
-			continue
+	w := exifWalk{t: t, order: order, valueRoom: maxEXIFValueShare * uint64(len(t))}
+	seen := map[uint32]bool{}
+	queue := []dirRef{{order.Uint32(t[4:]), true}}
+	for len(queue) > 0 {
+		d := queue[0]
+		queue = queue[1:]
+		if seen[d.off] {
+			return damagedEXIF(fmt.Sprintf("its directories form a loop (offset %d reached twice)", d.off))
 		}
-		seen[off] = true
-		dir, ok, err := readIFD(t, order, off)
+		seen[d.off] = true
+		if len(seen) > maxEXIFDirs {
+			return damagedEXIF(fmt.Sprintf("more than %d directories", maxEXIFDirs))
+		}
+		next, subs, err := w.dir(d.off)
 		if err != nil {
 			return err
 		}
-		if ok {
-			pointers = append(pointers, dir.pointers...)
+		if d.chain && next != 0 {
+			queue = append(queue, dirRef{next, true})
+		}
+		for _, s := range subs {
+			queue = append(queue, dirRef{s, false})
 		}
 	}
 	return nil
 }
 
-// exifTIFF finds the EXIF block as goexif does: after the first 0xFF 0xE1
-// byte pair anywhere in the file whose length field is not empty, if that
-// segment starts "Exif\0\0".
-func exifTIFF(data []byte) []byte {
-	for i := 0; ; {
-		j := bytes.IndexByte(data[i:], 0xFF)
-		if j < 0 || i+j+1 >= len(data) {
-			return nil
-		}
-		i += j + 2
-		if data[i-1] != 0xE1 {
-			continue
-		}
-		if i+2 > len(data) {
-			return nil
-		}
-		n := int(binary.BigEndian.Uint16(data[i:])) - 2
-		i += 2
-		if n == 0 {
-			continue
-		}
-		if n < 6 || i+n > len(data) || string(data[i:i+6]) != "Exif\x00\x00" {
-			return nil
-		}
-		return data[i+6 : i+n]
-	}
+func damagedEXIF(why string) error { return fmt.Errorf("damaged EXIF header: %s", why) }
+
+// exifWalk is the state of one checkEXIF walk.
+type exifWalk struct {
+	t         []byte
+	order     binary.ByteOrder
+	valueRoom uint64 // bytes of out-of-line values still allowed
 }
 
-// ifd is what checkEXIFLayout needs from one directory.
-type ifd struct {
-	next     int64   // offset of the next directory in the chain; 0 for none
-	pointers []int64 // offsets of the Exif, GPS and interoperability directories it names
-}
-
-// tiffTypeSize is the size in bytes of each TIFF field type (TIFF 6.0, section 2).
+// tiffTypeSize is the size in bytes of each TIFF field type (TIFF 6.0,
+// section 2), as goexif's table has them; other types it refuses itself,
+// holding nothing.
 var tiffTypeSize = [...]uint64{1: 1, 2: 1, 3: 2, 4: 4, 5: 8, 6: 1, 7: 1, 8: 2, 9: 4, 10: 8, 11: 4, 12: 8}
 
-// readIFD reads the directory at off in t, stopping where goexif's reader
-// stops: ok is false when goexif fails on the directory (harmlessly), and the
-// error names a tag goexif would read with a wrapped length.
-func readIFD(t []byte, order binary.ByteOrder, off int64) (d ifd, ok bool, err error) {
-	if off < 0 || off+2 > int64(len(t)) {
-		return d, false, nil
+// dir checks the directory at off: its 2-byte entry count, 12-byte entries
+// and 4-byte offset of the next directory, and every entry's value. It
+// returns that offset and the directories the entries name.
+func (w *exifWalk) dir(off uint32) (next uint32, subs []uint32, err error) {
+	t := w.t
+	if uint64(off)+2 > uint64(len(t)) {
+		return 0, nil, damagedEXIF(fmt.Sprintf("directory at offset %d lies outside the block", off))
 	}
-	p := int(off)
-	n := int(int16(order.Uint16(t[p:])))
-	p += 2
-	for range max(n, 0) {
-		if p+8 > len(t) {
-			return d, false, nil
+	n := uint64(w.order.Uint16(t[off:]))
+	if n > maxEXIFEntries {
+		return 0, nil, damagedEXIF(fmt.Sprintf("directory at offset %d has %d entries (limit %d)", off, n, maxEXIFEntries))
+	}
+	end := uint64(off) + 2 + 12*n + 4
+	if end > uint64(len(t)) {
+		return 0, nil, damagedEXIF(fmt.Sprintf("directory at offset %d runs past the end of the block", off))
+	}
+	for i := range n {
+		e := t[uint64(off)+2+12*i:]
+		id, typ, count := w.order.Uint16(e), w.order.Uint16(e[2:]), w.order.Uint32(e[4:])
+		if int(typ) >= len(tiffTypeSize) || tiffTypeSize[typ] == 0 || count == 0 {
+			continue
 		}
-		id, typ, count := order.Uint16(t[p:]), order.Uint16(t[p+2:]), order.Uint32(t[p+4:])
-		p += 8
-		if count == math.MaxUint32 || int(typ) >= len(tiffTypeSize) || tiffTypeSize[typ] == 0 {
-			return d, false, nil
-		}
-		length := tiffTypeSize[typ] * uint64(count)
-		read := uint64(uint32(length)) // goexif's 32-bit length
-		var val []byte
-		switch {
-		case read == 0:
-			return d, false, nil
-		case read > 4:
-			var voff uint64 // goexif keeps 0 when the offset cannot be read, and is then at the end
-			if p+4 <= len(t) {
-				voff = uint64(order.Uint32(t[p:]))
-				p += 4
-			} else {
-				p = len(t)
+		size := tiffTypeSize[typ] * uint64(count)
+		val := e[8 : 8+min(size, 4)]
+		if size > 4 {
+			voff := uint64(w.order.Uint32(e[8:]))
+			if voff+size > uint64(len(t)) {
+				return 0, nil, damagedEXIF(fmt.Sprintf("tag %#04x declares %d values of %d bytes, more than the block holds", id, count, tiffTypeSize[typ]))
 			}
-			if voff+read > uint64(len(t)) {
-				return d, false, nil
+			if size > w.valueRoom {
+				return 0, nil, damagedEXIF(fmt.Sprintf("tag values add up to more than %d times the block", maxEXIFValueShare))
 			}
-			val = t[voff : voff+read]
-		default:
-			if p+4 > len(t) {
-				return d, false, nil
-			}
-			val = t[p : p+int(read)]
-			p += 4
-		}
-		if length != read {
-			return d, false, fmt.Errorf("damaged EXIF header: tag %#04x declares %d values of %d bytes", id, count, tiffTypeSize[typ])
+			w.valueRoom -= size
+			val = t[voff : voff+size]
 		}
 		if id == 0x8769 || id == 0x8825 || id == 0xA005 { // Exif, GPS, interoperability directory
-			if v, isInt := firstInt(val, typ, order); isInt {
-				d.pointers = append(d.pointers, v)
+			if v, isInt := firstInt(val, typ, w.order); isInt {
+				subs = append(subs, uint32(v))
 			}
 		}
 	}
-	if p+4 > len(t) {
-		return d, false, nil
-	}
-	d.next = int64(int32(order.Uint32(t[p:])))
-	return d, true, nil
+	return w.order.Uint32(t[end-4:]), subs, nil
 }
 
 // firstInt is the first value of an integer-typed tag, as goexif's Int64(0).

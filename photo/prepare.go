@@ -1,11 +1,11 @@
 package photo
 
 import (
+	"bufio"
 	"bytes"
 	"fmt"
 	"image"
 	"image/jpeg"
-	"os"
 
 	"golang.org/x/image/draw"
 )
@@ -28,22 +28,52 @@ type Prepared struct {
 // Prepare reads a JPEG, reduces it to fit s.LongSide, turns it upright by its
 // EXIF orientation (1..8) and encodes it again at s.Quality. Baseline 4:2:0
 // and 4:4:4 JPEGs (what cameras and phones write) are reduced and turned on
-// their Y, Cb and Cr planes; other layouts go through RGBA.
-func Prepare(path string, orientation int, s Settings) (p Prepared, err error) {
+// their Y, Cb and Cr planes; other layouts go through RGBA. A file Scan would
+// refuse (not a regular file, too large, too many scans, too much memory to
+// decode) is refused here too.
+func Prepare(path string, orientation int, s Settings) (Prepared, error) {
+	data, err := readPhoto(path)
+	if err != nil {
+		return Prepared{}, err
+	}
+	l, err := decodableLayout(data)
+	if err != nil {
+		return Prepared{}, err
+	}
+	return prepare(data, l, orientation, s)
+}
+
+// decodableLayout reads the layout of a JPEG in memory and says why it is not
+// decoded, if so.
+func decodableLayout(data []byte) (*layout, error) {
+	l, err := readLayout(bufio.NewReader(bytes.NewReader(data)))
+	if err != nil {
+		return nil, fmt.Errorf("not a readable JPEG: %w", err)
+	}
+	return l, l.decodable()
+}
+
+// prepare is Prepare on a file's content that passed decodableLayout, l its
+// layout. libjpeg-turbo takes single-scan files only: for several scans it
+// keeps every coefficient of the image (2 bytes a sample, outside the Go heap
+// and its estimate), where image/jpeg decodes each baseline scan straight to
+// pixels.
+func prepare(data []byte, l *layout, orientation int, s Settings) (p Prepared, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			err = fmt.Errorf("cannot decode: %v", r)
 		}
 	}()
-	data, err := os.ReadFile(path)
-	if err != nil {
-		return p, err
-	}
 	var src image.Image
-	if y, ok := fastDecode(data, s.LongSide); ok {
-		src = y
-	} else if src, err = jpeg.Decode(bytes.NewReader(data)); err != nil {
-		return p, fmt.Errorf("cannot decode: %w", err)
+	if l.scans == 1 {
+		if y, ok := fastDecode(data, s.LongSide); ok {
+			src = y
+		}
+	}
+	if src == nil {
+		if src, err = jpeg.Decode(bytes.NewReader(data)); err != nil {
+			return p, fmt.Errorf("cannot decode: %w", err)
+		}
 	}
 	sb := src.Bounds()
 	w, h := fitLongSide(sb.Dx(), sb.Dy(), s.LongSide)

@@ -1,14 +1,13 @@
 package photo
 
 import (
+	"bufio"
 	"bytes"
 	"crypto/sha256"
 	"encoding/hex"
 	"errors"
 	"fmt"
-	"image/jpeg"
 	"io"
-	"os"
 	"strings"
 	"time"
 
@@ -30,47 +29,75 @@ type Header struct {
 
 // Scan reads a JPEG file's header: its content hash, its size from the frame
 // header and its EXIF time, position and orientation. The error says why the
-// file cannot be used as a photo: it cannot be read, is not a readable JPEG,
-// or declares more than maxMP megapixels.
+// file cannot be used as a photo: it is not a regular file or is larger than
+// MaxFileBytes (both judged before it is opened), cannot be read, is not a
+// readable JPEG, declares more than maxMP megapixels, or would take too long
+// or too much memory to decode (see decodable).
+//
+// Only the marker segments are parsed; the file is read once, in a bounded
+// buffer, for its hash.
 func Scan(path string, maxMP float64) (Header, error) {
-	data, err := os.ReadFile(path)
+	f, err := openPhoto(path)
 	if err != nil {
-		return Header{}, fmt.Errorf("cannot be read: %w", err)
+		return Header{}, err
 	}
-	return ScanBytes(data, maxMP)
+	defer f.Close()
+	return scan(f, maxMP)
 }
 
 // ScanBytes is Scan on a file's content; it never panics.
-func ScanBytes(data []byte, maxMP float64) (h Header, err error) {
+func ScanBytes(data []byte, maxMP float64) (Header, error) {
+	return scan(bytes.NewReader(data), maxMP)
+}
+
+func scan(r io.Reader, maxMP float64) (h Header, err error) {
 	defer func() {
-		if r := recover(); r != nil {
-			h, err = Header{}, fmt.Errorf("damaged file: %v", r)
+		if rec := recover(); rec != nil {
+			h, err = Header{}, fmt.Errorf("damaged file: %v", rec)
 		}
 	}()
-	sum := sha256.Sum256(data)
-	cfg, err := jpeg.DecodeConfig(bytes.NewReader(data))
+	sum := sha256.New()
+	limited := &io.LimitedReader{R: r, N: MaxFileBytes + 1}
+	br := bufio.NewReaderSize(io.TeeReader(limited, sum), 64<<10)
+	l, err := readLayout(br)
+	if limited.N == 0 {
+		return Header{}, errTooLarge
+	}
 	if err != nil {
 		return Header{}, fmt.Errorf("not a readable JPEG: %w", err)
 	}
-	if mp := float64(cfg.Width) * float64(cfg.Height) / 1e6; mp > maxMP {
-		return Header{}, fmt.Errorf("%d×%d pixels (%.0f MP) is over the %g MP limit", cfg.Width, cfg.Height, mp, maxMP)
+	if mp := float64(l.width) * float64(l.height) / 1e6; mp > maxMP {
+		return Header{}, fmt.Errorf("%d×%d pixels (%.0f MP) is over the %g MP limit", l.width, l.height, mp, maxMP)
 	}
-	h = Header{Hash: hex.EncodeToString(sum[:]), Width: cfg.Width, Height: cfg.Height, Orientation: 1}
-	if h.EXIFErr = checkEXIFLayout(data); h.EXIFErr == nil {
-		h.EXIFErr = readEXIF(&h, bytes.NewReader(data))
+	if err := l.decodable(); err != nil {
+		return Header{}, err
+	}
+	// The rest of the file, for the hash only.
+	if _, err := io.Copy(io.Discard, br); err != nil {
+		return Header{}, fmt.Errorf("cannot be read: %w", err)
+	}
+	if limited.N == 0 {
+		return Header{}, errTooLarge
+	}
+	h = Header{Hash: hex.EncodeToString(sum.Sum(nil)), Width: l.width, Height: l.height, Orientation: 1}
+	if l.exif == nil {
+		h.EXIFErr = errors.New("no EXIF data")
+	} else if h.EXIFErr = checkEXIF(l.exif); h.EXIFErr == nil {
+		h.EXIFErr = readEXIF(&h, l.exif)
 	}
 	return h, nil
 }
 
-// readEXIF fills h from the file's EXIF header. A panic inside the EXIF
-// library on a damaged file is turned into an error for that file alone.
-func readEXIF(h *Header, r io.Reader) (err error) {
+// readEXIF fills h from an EXIF block that passed checkEXIF; goexif reads the
+// block alone, never the file. A panic inside goexif is turned into an error
+// for that file alone.
+func readEXIF(h *Header, tiff []byte) (err error) {
 	defer func() {
 		if rec := recover(); rec != nil {
 			err = fmt.Errorf("damaged EXIF header: %v", rec)
 		}
 	}()
-	x, err := exif.Decode(r)
+	x, err := exif.Decode(bytes.NewReader(tiff))
 	if err != nil && exif.IsCriticalError(err) || x == nil {
 		return errors.New("no EXIF data")
 	}

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"crypto/sha256"
 	"encoding/hex"
+	"errors"
 	"fmt"
 	"image/jpeg"
 	"os"
@@ -15,7 +16,7 @@ import (
 // Source is what the photo stage needs to know about one file.
 type Source struct {
 	Path        string
-	Hash        string // content hash (Header.Hash); "" bypasses the cache
+	Hash        string // content hash (Header.Hash); the file must still have it; "" bypasses the cache and that check
 	Orientation int    // EXIF orientation 1..8
 }
 
@@ -29,8 +30,9 @@ type result struct {
 
 // Stage prepares srcs on all cores and hands each result to use, in input
 // order, as soon as it and all before it are done. Each worker holds one
-// decoded image at a time and results are not kept here, so memory does not
-// grow with the number of photos. With s.CacheDir set, a photo whose content
+// decoded image at a time, photos are decoded at once only while their
+// estimated memory together stays within MaxDecodeBytes, and results are not
+// kept here, so memory does not grow with the number of photos or cores. With s.CacheDir set, a photo whose content
 // and settings were seen before is read back instead of prepared again.
 func Stage(srcs []Source, s Settings, use func(i int, p Prepared, err error)) {
 	stage(srcs, s, func(i int, r result) { use(i, r.prep, r.err) })
@@ -44,13 +46,14 @@ func stage(srcs []Source, s Settings, use func(i int, r result)) {
 		r result
 	}
 	results := make(chan done, workers)
+	budget := newMemoryBudget(MaxDecodeBytes)
 	var wg sync.WaitGroup
 	for w := 0; w < workers; w++ {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				results <- done{i, prepareRecovered(srcs[i], s)}
+				results <- done{i, prepareRecovered(srcs[i], s, budget)}
 			}
 		}()
 	}
@@ -91,13 +94,13 @@ func stage(srcs []Source, s Settings, use func(i int, r result)) {
 
 // prepareRecovered is prepareCached with a panic caught, since a panic in a
 // worker goroutine could not be recovered by the caller.
-func prepareRecovered(src Source, s Settings) (r result) {
+func prepareRecovered(src Source, s Settings, budget *memoryBudget) (r result) {
 	defer func() {
 		if v := recover(); v != nil {
 			r = result{panic: v}
 		}
 	}()
-	return prepareOne(src, s)
+	return prepareOne(src, s, budget)
 }
 
 // prepareOne prepares one photo in a worker; tests replace it to make a worker panic.
@@ -122,20 +125,37 @@ func cacheKey(src Source, s Settings) string {
 	return hex.EncodeToString(sum[:])
 }
 
-func prepareCached(src Source, s Settings) result {
-	if s.CacheDir == "" || src.Hash == "" {
-		p, err := Prepare(src.Path, src.Orientation, s)
-		return result{prep: p, err: err}
-	}
-	key := cacheKey(src, s)
-	path := filepath.Join(s.CacheDir, key[:2], key+".jpg")
-	if data, err := os.ReadFile(path); err == nil {
-		if cfg, err := jpeg.DecodeConfig(bytes.NewReader(data)); err == nil {
-			return result{prep: Prepared{JPEG: data, Width: cfg.Width, Height: cfg.Height}, cached: true}
+// prepareCached prepares one photo, or reads it back from the cache. A file
+// whose content no longer has the hash it was scanned with is refused: it was
+// changed or replaced since. Decoding waits for its estimated memory in budget.
+func prepareCached(src Source, s Settings, budget *memoryBudget) result {
+	var path string
+	if s.CacheDir != "" && src.Hash != "" {
+		key := cacheKey(src, s)
+		path = filepath.Join(s.CacheDir, key[:2], key+".jpg")
+		if data, err := os.ReadFile(path); err == nil {
+			if cfg, err := jpeg.DecodeConfig(bytes.NewReader(data)); err == nil {
+				return result{prep: Prepared{JPEG: data, Width: cfg.Width, Height: cfg.Height}, cached: true}
+			}
 		}
 	}
-	p, err := Prepare(src.Path, src.Orientation, s)
-	if err == nil {
+	data, err := readPhoto(src.Path)
+	if err != nil {
+		return result{err: err}
+	}
+	if src.Hash != "" {
+		if sum := sha256.Sum256(data); hex.EncodeToString(sum[:]) != src.Hash {
+			return result{err: errors.New("file changed since it was scanned")}
+		}
+	}
+	l, err := decodableLayout(data)
+	if err != nil {
+		return result{err: err}
+	}
+	held := budget.acquire(int64(len(data)) + l.prepareBytes(s.LongSide))
+	p, err := prepare(data, l, src.Orientation, s)
+	budget.release(held)
+	if err == nil && path != "" {
 		storeCached(path, p.JPEG) // a cache that cannot be written only costs time
 	}
 	return result{prep: p, err: err}

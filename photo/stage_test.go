@@ -2,6 +2,8 @@ package photo
 
 import (
 	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
 	"image"
 	"image/color"
 	"image/jpeg"
@@ -14,7 +16,7 @@ import (
 )
 
 // testPhoto writes a w × h JPEG (4:2:0, as cameras write) of smooth colour
-// gradients and returns it as a Source whose hash is its name.
+// gradients and returns it as a Source with its content hash.
 func testPhoto(t testing.TB, dir, name string, w, h, orientation int) Source {
 	img := image.NewRGBA(image.Rect(0, 0, w, h))
 	for y := 0; y < h; y++ {
@@ -28,7 +30,8 @@ func testPhoto(t testing.TB, dir, name string, w, h, orientation int) Source {
 	}
 	path := filepath.Join(dir, name)
 	os.WriteFile(path, b.Bytes(), 0o644)
-	return Source{Path: path, Orientation: orientation, Hash: name}
+	sum := sha256.Sum256(b.Bytes())
+	return Source{Path: path, Orientation: orientation, Hash: hex.EncodeToString(sum[:])}
 }
 
 // The planar reduction against x/image/draw's Catmull-Rom on the whole RGBA
@@ -162,7 +165,7 @@ func TestStageOrderAndErrors(t *testing.T) {
 func TestStageWorkerPanicReachesCaller(t *testing.T) {
 	saved := prepareOne
 	defer func() { prepareOne = saved }()
-	prepareOne = func(src Source, s Settings) result {
+	prepareOne = func(src Source, s Settings, _ *memoryBudget) result {
 		panic("reduction failed on " + src.Path)
 	}
 	used := 0
@@ -175,4 +178,17 @@ func TestStageWorkerPanicReachesCaller(t *testing.T) {
 	}()
 	Stage([]Source{{Path: "bad.jpg"}}, Settings{LongSide: 200, Quality: 80}, func(int, Prepared, error) { used++ })
 	t.Fatal("Stage returned after a worker panicked")
+}
+
+// A file replaced after the scan (a link pointed elsewhere, a photo
+// overwritten) no longer has its scanned hash and is refused, not embedded.
+func TestStageRefusesChangedFile(t *testing.T) {
+	dir := t.TempDir()
+	a, b := testPhoto(t, dir, "a.jpg", 300, 200, 1), testPhoto(t, dir, "b.jpg", 200, 300, 1)
+	a.Hash = b.Hash
+	Stage([]Source{a}, Settings{LongSide: 100, Quality: 80}, func(_ int, p Prepared, err error) {
+		if err == nil || err.Error() != "file changed since it was scanned" || len(p.JPEG) != 0 {
+			t.Errorf("changed file: %d bytes, %v", len(p.JPEG), err)
+		}
+	})
 }

@@ -6,6 +6,7 @@ import (
 	"path/filepath"
 	"runtime"
 	"sort"
+	"strings"
 	"sync"
 
 	"github.com/lossline/lossline/photo"
@@ -20,18 +21,21 @@ const DefaultMaxMegapixels = 200
 
 // ScanPhotos lists the JPEGs under dir/photos (any depth) with their EXIF
 // time, position and orientation, their size from the JPEG header and a hash
-// of their content. Files that are not JPEG, cannot be read, declare more
-// than maxMP megapixels, or repeat another file's content are listed as
+// of their content. Files that are not JPEG, links that lead out of the
+// folder, anything but a regular file, files that cannot be read or that
+// photo.Scan refuses (too large, more than maxMP megapixels, too costly to
+// decode), and files that repeat another file's content are listed as
 // skipped with the reason; a missing folder is no problem.
 func ScanPhotos(dir string, maxMP float64) ([]*Photo, []SkippedFile, ProblemList) {
 	var skipped []SkippedFile
 	var problems ProblemList
 	root := filepath.Join(dir, PhotoDir)
+	realRoot, _ := filepath.EvalSymlinks(root) // "" when missing: no link then leads inside
 	skip := func(name, path, why string) {
 		skipped = append(skipped, SkippedFile{Name: name, Path: path, Reason: why})
 		problems.Warnf(path, 0, "skipped: %s", why)
 	}
-	var names, paths []string
+	var names, paths, reals []string // reals: the files opened, links resolved
 	err := filepath.WalkDir(root, func(path string, d fs.DirEntry, err error) error {
 		if err != nil {
 			if path == root && os.IsNotExist(err) {
@@ -49,7 +53,15 @@ func ScanPhotos(dir string, maxMP float64) ([]*Photo, []SkippedFile, ProblemList
 			skip(name, path, why)
 			return nil
 		}
-		names, paths = append(names, name), append(paths, path)
+		real := path
+		if d.Type()&fs.ModeSymlink != 0 {
+			var why string
+			if real, why = resolveInside(realRoot, path); why != "" {
+				skip(name, path, why)
+				return nil
+			}
+		}
+		names, paths, reals = append(names, name), append(paths, path), append(reals, real)
 		return nil
 	})
 	if err != nil {
@@ -64,7 +76,7 @@ func ScanPhotos(dir string, maxMP float64) ([]*Photo, []SkippedFile, ProblemList
 		go func() {
 			defer wg.Done()
 			for i := range next {
-				scans[i] = scanPhoto(names[i], paths[i], maxMP)
+				scans[i] = scanPhoto(names[i], paths[i], reals[i], maxMP)
 			}
 		}()
 	}
@@ -99,8 +111,10 @@ type photoScan struct {
 	skip  string
 }
 
-func scanPhoto(name, path string, maxMP float64) photoScan {
-	h, err := photo.Scan(path, maxMP)
+// scanPhoto reads the file real (path with links resolved) for the photo
+// named name at path.
+func scanPhoto(name, path, real string, maxMP float64) photoScan {
+	h, err := photo.Scan(real, maxMP)
 	if err != nil {
 		return photoScan{skip: err.Error()}
 	}
@@ -112,4 +126,19 @@ func scanPhoto(name, path string, maxMP float64) photoScan {
 		p.Problem = h.EXIFErr.Error()
 	}
 	return photoScan{photo: p}
+}
+
+// resolveInside resolves the links in path and says why the file it leads to
+// is not taken, or "" when it lies inside the photo folder realRoot (itself
+// resolved): a link must not bring a file from elsewhere into the report.
+func resolveInside(realRoot, path string) (real, why string) {
+	real, err := filepath.EvalSymlinks(path)
+	if err != nil {
+		return "", "link leads nowhere"
+	}
+	rel, err := filepath.Rel(realRoot, real)
+	if realRoot == "" || err != nil || rel == ".." || strings.HasPrefix(rel, ".."+string(filepath.Separator)) || filepath.IsAbs(rel) {
+		return "", "link points outside " + PhotoDir + "/"
+	}
+	return real, ""
 }
