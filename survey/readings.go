@@ -1,6 +1,7 @@
 package survey
 
 import (
+	"bytes"
 	"fmt"
 	"slices"
 	"sort"
@@ -65,7 +66,7 @@ func (r *checklistReader) table(t *east.Table) {
 func (r *checklistReader) rowSource(row ast.Node) []byte {
 	start := min(max(row.Pos(), 0), len(r.src))
 	end := len(r.src)
-	if i := strings.IndexByte(string(r.src[start:]), '\n'); i >= 0 {
+	if i := bytes.IndexByte(r.src[start:], '\n'); i >= 0 {
 		end = start + i
 	}
 	return r.src[start:end]
