@@ -24,7 +24,7 @@ func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 		latest = s.Date // a reading on any of the survey's days belongs to this visit
 	}
 	var items []*Assessed
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		in := inputFor(loc, loc.CML.Visits, latest)
 		items = append(items, &Assessed{Asset: loc.Asset, Component: loc.Component, CML: loc.CML, Result: wallloss.Assess(in, p)})
 	}
@@ -58,7 +58,7 @@ func (a *Assessed) ranked() wallloss.Ranked {
 // LatestVisit is the newest visit date found in any reading table.
 func (s *Survey) LatestVisit() time.Time {
 	var t time.Time
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		for _, v := range loc.CML.Visits {
 			if v.Date.Time.After(t) {
 				t = v.Date.Time

@@ -124,7 +124,7 @@ func linkPhotos(s *Survey) ProblemList {
 	for _, p := range s.Photos {
 		byName[p.Name] = p
 	}
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		m := loc.CML
 		for i, ref := range m.PhotoRefs {
 			name := path.Clean(strings.ReplaceAll(ref, `\`, "/"))

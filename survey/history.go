@@ -98,7 +98,7 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 // the component, once every earlier survey is merged in.
 func readingChecks(s *Survey) ProblemList {
 	var problems ProblemList
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		m, d := loc.CML, loc.Component.Design
 		if len(m.Visits) == 0 {
 			problems.Warnf(m.File, m.Line, "CML %s has no readings", m.ID)
@@ -130,10 +130,10 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 	s.History = h
 
 	byID := map[string]Located{}
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		byID[loc.CML.ID] = loc
 	}
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		for _, old := range loc.CML.Was {
 			if other, taken := byID[old]; taken && other.CML != loc.CML {
 				problems.Errorf(s.File, loc.CML.Line, "CML %s was %s, but %s is still a CML of this survey (line %d)", loc.CML.ID, old, old, other.CML.Line)
@@ -151,7 +151,7 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 	predecessors := map[*Component][]*Component{}
 	dropped := map[string]bool{}
 	for _, e := range earlier {
-		for _, old := range e.AllCMLs() {
+		for old := range e.CMLs() {
 			cur, ok := byID[old.CML.ID]
 			if !ok && len(old.CML.Visits) > 0 && !s.covers(old.Asset.Name, old.Component.Name) {
 				cur, ok = carryIn(s, old), true
@@ -174,7 +174,7 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 			}
 		}
 	}
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		slices.SortStableFunc(loc.CML.Visits, func(a, b Visit) int { return a.Date.Time.Compare(b.Date.Time) })
 		for _, v := range loc.CML.Visits {
 			addVisitDate(loc.Component, v.Date)

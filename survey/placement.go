@@ -66,13 +66,13 @@ type positioned struct {
 func PlacePhotos(s *Survey, opt PlaceOptions) ProblemList {
 	var problems ProblemList
 	var pts []positioned
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		if loc.CML.GPS != nil {
 			pts = append(pts, positioned{loc, *loc.CML.GPS})
 		}
 	}
 	named := map[string]Located{}
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		for _, ref := range loc.CML.PhotoRefs {
 			if _, ok := named[ref]; !ok {
 				named[ref] = loc

@@ -265,7 +265,7 @@ func parseLatLon(s string) (LatLon, error) {
 
 // finish checks what can only be checked once the whole checklist is read.
 func (r *checklistReader) finish() {
-	if len(r.survey.Assets) == 0 || len(r.survey.AllCMLs()) == 0 {
+	if len(r.survey.Assets) == 0 || r.survey.CMLCount() == 0 {
 		r.problems.Errorf(r.file, 0, "the checklist has no CMLs: add a ## component heading and a reading table under it")
 	}
 	for _, a := range r.survey.Assets {
