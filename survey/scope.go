@@ -46,9 +46,12 @@ func (r *checklistReader) scopeKey(m map[string]any) {
 // entryLine finds the line of a list entry under the front matter key at
 // line key, or returns key.
 func (r *checklistReader) entryLine(key int, entry string) int {
-	lines := strings.Split(string(r.src), "\n")
-	for i := key; i < len(lines); i++ { // lines[key] is the line after the key
-		l := strings.TrimSpace(lines[i])
+	i := 0
+	for l := range strings.Lines(r.text) {
+		if i++; i <= key { // line i is the key's or one before it
+			continue
+		}
+		l = strings.TrimSpace(l)
 		if l == "---" {
 			break
 		}
@@ -57,7 +60,7 @@ func (r *checklistReader) entryLine(key int, entry string) int {
 		}
 		l = strings.Trim(strings.TrimSpace(strings.TrimPrefix(l, "-")), `"'`)
 		if l == strings.TrimSpace(entry) {
-			return i + 1
+			return i
 		}
 	}
 	return key
