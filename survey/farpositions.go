@@ -9,6 +9,8 @@ import (
 // farPositions warns of CMLs whose gps position lies far from the median
 // position of the asset's other CMLs (see gpsFarM), saying which slip —
 // a changed sign, latitude and longitude swapped — would bring it near.
+// Leaving one CML out moves the median position to one of a few places, so
+// the distances to each such place are sorted once: n log n in the CMLs.
 func farPositions(a *Asset) ProblemList {
 	var placed []*CML
 	for _, c := range a.Components {
@@ -18,24 +20,32 @@ func farPositions(a *Asset) ProblemList {
 			}
 		}
 	}
+	if len(placed)-1 < gpsMinOthers {
+		return nil
+	}
+	lat, lon := make([]float64, len(placed)), make([]float64, len(placed))
+	for i, m := range placed {
+		lat[i], lon[i] = m.GPS.Lat, m.GPS.Lon
+	}
+	lats, lons := newSortedValues(lat), newSortedValues(lon)
+	// spreads holds, per median position of the others, the sorted
+	// distances of every placed CML from it.
+	spreads := map[[2]uint64]sortedValues{}
 	var problems ProblemList
 	for _, m := range placed {
-		var others []LatLon
-		for _, o := range placed {
-			if o != m {
-				others = append(others, *o.GPS)
+		center := LatLon{lats.medianWithout(m.GPS.Lat), lons.medianWithout(m.GPS.Lon)}
+		key := [2]uint64{math.Float64bits(center.Lat), math.Float64bits(center.Lon)}
+		spread, ok := spreads[key]
+		if !ok {
+			d := make([]float64, len(placed))
+			for i, o := range placed {
+				d[i] = DistanceM(*o.GPS, center)
 			}
+			spread = newSortedValues(d)
+			spreads[key] = spread
 		}
-		if len(others) < gpsMinOthers {
-			continue
-		}
-		center := medianPosition(others)
-		spread := make([]float64, len(others))
-		for i, o := range others {
-			spread[i] = DistanceM(o, center)
-		}
-		limit := max(gpsFarM, gpsSpreadFactor*median(spread))
 		d := DistanceM(*m.GPS, center)
+		limit := max(gpsFarM, gpsSpreadFactor*spread.medianWithout(d))
 		if d <= limit {
 			continue
 		}
@@ -77,16 +87,6 @@ func positionSlips(p LatLon) []positionSlip {
 		)
 	}
 	return out
-}
-
-// medianPosition is the median latitude and the median longitude (fine over
-// a site, not across the antimeridian).
-func medianPosition(ps []LatLon) LatLon {
-	lat, lon := make([]float64, len(ps)), make([]float64, len(ps))
-	for i, p := range ps {
-		lat[i], lon[i] = p.Lat, p.Lon
-	}
-	return LatLon{median(lat), median(lon)}
 }
 
 func positionText(p LatLon) string {

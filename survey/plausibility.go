@@ -3,7 +3,6 @@ package survey
 import (
 	"fmt"
 	"math"
-	"slices"
 	"strconv"
 
 	"github.com/lossline/lossline/survey/wallloss"
@@ -56,13 +55,19 @@ const (
 // plausibility warns of readings, steps between visits and positions that
 // look like typing slips. It is pure over the merged survey, so earlier
 // visits count, and each warning points at the reading's or row's line.
+// Each value is judged against a median of the others, found in a list
+// sorted once per CML, component or asset: the cost grows as n log n in
+// the CMLs of a component or asset.
 func plausibility(s *Survey) ProblemList {
 	var problems ProblemList
+	slipped := map[*Visit]bool{}
+	var work []float64
 	for _, a := range s.Assets {
 		for _, c := range a.Components {
-			slipped := map[*Visit]bool{}
 			for _, m := range c.CMLs {
-				problems = append(problems, readingSlips(s, c, m, slipped)...)
+				var p ProblemList
+				p, work = readingSlips(s, c, m, slipped, work)
+				problems = append(problems, p...)
 			}
 			problems = append(problems, steps(s, c, slipped)...)
 		}
@@ -85,39 +90,43 @@ type reference struct {
 // against its nominal; it must be far off every one of them, and the value it
 // stands for close to one, tried in that order (the record before the design
 // value). A lone other reading of the same or a later visit is not used: with
-// two values only, the earlier one is trusted.
-func readingSlips(s *Survey, c *Component, m *CML, slipped map[*Visit]bool) ProblemList {
+// two values only, the earlier one is trusted. Visits with a slip are marked
+// in slipped; work is room for the values, returned for reuse.
+func readingSlips(s *Survey, c *Component, m *CML, slipped map[*Visit]bool, work []float64) (ProblemList, []float64) {
 	var problems ProblemList
 	for i := range m.Visits {
 		v := &m.Visits[i]
-		for j, r := range v.ReadingsMM {
-			var refs []reference
-			var others []float64
-			lone := true // the only other value is not of an earlier visit
-			for k, o := range m.Visits {
-				if k != i {
-					others = append(others, o.Governing())
-					lone = lone && k > i
-				}
+		// The governing readings of the other visits and this visit's
+		// readings, sorted; each reading is judged against them without itself.
+		work = work[:0]
+		lone := true // the only other value is not of an earlier visit
+		for k, o := range m.Visits {
+			if k != i {
+				work = append(work, o.Governing())
+				lone = lone && k > i
 			}
-			for k, o := range v.ReadingsMM {
-				if k != j {
-					others = append(others, o)
-				}
-			}
-			if len(others) > 1 || len(others) == 1 && !lone {
-				refs = append(refs, reference{median(others), "other readings", len(others)})
+		}
+		work = append(work, v.ReadingsMM...)
+		values := newSortedValues(work)
+		others := len(values) - 1
+		for _, r := range v.ReadingsMM {
+			var refs [2]reference
+			n := 0
+			if others > 1 || others == 1 && !lone {
+				refs[n] = reference{values.medianWithout(r), "other readings", others}
+				n++
 			}
 			if c.Design.NominalMM != nil {
-				refs = append(refs, reference{*c.Design.NominalMM, "nominal", 1})
+				refs[n] = reference{*c.Design.NominalMM, "nominal", 1}
+				n++
 			}
-			if msg := slip(s.Units, r, refs); msg != "" {
+			if msg := slip(s.Units, r, refs[:n]); msg != "" {
 				slipped[v] = true
 				problems.Warnf(v.File, v.Line, "CML %s, visit %s: reading %s %s", m.ID, v.Date, written(s.Units, r), msg)
 			}
 		}
 	}
-	return problems
+	return problems, work
 }
 
 // slip says what a reading r far off every reference likely stands for, or "".
@@ -164,12 +173,13 @@ func written(u Unit, mm float64) string {
 // reading already warned about as a slip are skipped.
 func steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
 	type interval struct {
-		m          *CML
 		from, to   *Visit
 		lossMM, mm float64 // loss, and rate in mm/y
 	}
 	var all []interval
+	var cmls []int // all[cmls[k]:cmls[k+1]] are the intervals of one CML
 	for _, m := range c.CMLs {
+		cmls = append(cmls, len(all))
 		for i := 1; i < len(m.Visits); i++ {
 			a, b := &m.Visits[i-1], &m.Visits[i]
 			y := wallloss.YearsBetween(a.Date.Time, b.Date.Time)
@@ -177,32 +187,45 @@ func steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
 				continue
 			}
 			loss := a.Governing() - b.Governing()
-			all = append(all, interval{m, a, b, loss, loss / y})
+			all = append(all, interval{a, b, loss, loss / y})
 		}
 	}
+	cmls = append(cmls, len(all))
+	rates := make([]float64, len(all))
+	for i, x := range all {
+		rates[i] = x.mm
+	}
+	sorted := newSortedValues(rates)
 	var problems ProblemList
-	for _, x := range all {
-		if x.lossMM <= stepMinLossMM || slipped[x.from] || slipped[x.to] {
+	var own []float64
+	for k, m := range c.CMLs {
+		group := all[cmls[k]:cmls[k+1]]
+		if len(all)-len(group) < stepMinOthers {
 			continue
 		}
-		var others, own []float64
-		for _, o := range all {
-			switch {
-			case o.m != x.m:
-				others = append(others, o.mm)
-			case o.to != x.to:
-				own = append(own, o.mm)
+		var mine []float64 // this CML's rates, left out of the others'
+		for j, x := range group {
+			if x.lossMM <= stepMinLossMM || slipped[x.from] || slipped[x.to] {
+				continue
 			}
+			if mine == nil {
+				for _, o := range group {
+					mine = append(mine, o.mm)
+				}
+			}
+			med := sorted.medianWithout(mine...)
+			own = own[:0]
+			for i, o := range group {
+				if i != j {
+					own = append(own, o.mm)
+				}
+			}
+			if x.mm <= stepRatio*max(med, stepRateFloorMMPerY) || len(own) > 0 && x.mm <= stepRatio*medianSorting(own) {
+				continue
+			}
+			problems.Warnf(x.to.File, x.to.Line, "CML %s, visit %s: %s %s lost since %s (%s), over %g times the median interval rate of the other CMLs of %q (%s): re-measure, or confirm the reading",
+				m.ID, x.to.Date, s.Units.Format(x.lossMM), s.Units, x.from.Date, rateText(s.Units, x.mm), stepRatio, c.Name, rateText(s.Units, med))
 		}
-		if len(others) < stepMinOthers {
-			continue
-		}
-		med := median(others)
-		if x.mm <= stepRatio*max(med, stepRateFloorMMPerY) || len(own) > 0 && x.mm <= stepRatio*median(own) {
-			continue
-		}
-		problems.Warnf(x.to.File, x.to.Line, "CML %s, visit %s: %s %s lost since %s (%s), over %g times the median interval rate of the other CMLs of %q (%s): re-measure, or confirm the reading",
-			x.m.ID, x.to.Date, s.Units.Format(x.lossMM), s.Units, x.from.Date, rateText(s.Units, x.mm), stepRatio, c.Name, rateText(s.Units, med))
 	}
 	return problems
 }
@@ -213,15 +236,4 @@ func rateText(u Unit, mmPerY float64) string {
 		return strconv.FormatFloat(mmPerY/MMPerInch*1000, 'f', 1, 64) + " mpy"
 	}
 	return strconv.FormatFloat(mmPerY, 'f', 2, 64) + " mm/y"
-}
-
-// median of a non-empty list; the mean of the middle two for an even count.
-func median(v []float64) float64 {
-	v = slices.Clone(v)
-	slices.Sort(v)
-	n := len(v)
-	if n%2 == 1 {
-		return v[n/2]
-	}
-	return (v[n/2-1] + v[n/2]) / 2
 }
