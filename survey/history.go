@@ -129,7 +129,7 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 	h := &History{Earlier: earlier, PreviousPhotos: map[*CML][]*Photo{}}
 	s.History = h
 
-	byID := map[string]Located{}
+	byID := make(map[string]Located, s.CMLCount())
 	for loc := range s.CMLs() {
 		byID[loc.CML.ID] = loc
 	}
@@ -149,13 +149,25 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 		}
 	}
 	predecessors := map[*Component][]*Component{}
+	var last [2]*Component // the pair of components last recorded as predecessors
 	dropped := map[string]bool{}
+	scope := s.scope()
+	covered := map[*Component]bool{} // earlier components the scope covers
+	carry := newCarrier(s)
 	for _, e := range earlier {
+		var photos map[string]*Photo // e's photos by name, made when a CML names one
 		for old := range e.CMLs() {
 			cur, ok := byID[old.CML.ID]
-			if !ok && len(old.CML.Visits) > 0 && !s.covers(old.Asset.Name, old.Component.Name) {
-				cur, ok = carryIn(s, old), true
-				byID[old.CML.ID] = cur
+			if !ok && len(old.CML.Visits) > 0 {
+				in, known := covered[old.Component]
+				if !known {
+					in = scope.covers(old.Asset.Name, old.Component.Name)
+					covered[old.Component] = in
+				}
+				if !in {
+					cur, ok = carry.carryIn(old), true
+					byID[old.CML.ID] = cur
+				}
 			}
 			if !ok {
 				if !dropped[old.CML.ID] && len(old.CML.Visits) > 0 {
@@ -165,17 +177,28 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 				}
 				continue
 			}
-			if !slices.Contains(predecessors[cur.Component], old.Component) {
-				predecessors[cur.Component] = append(predecessors[cur.Component], old.Component)
+			if pair := [2]*Component{cur.Component, old.Component}; pair != last {
+				if !slices.Contains(predecessors[cur.Component], old.Component) {
+					predecessors[cur.Component] = append(predecessors[cur.Component], old.Component)
+				}
+				last = pair
 			}
 			problems = append(problems, mergeVisits(cur, old.CML)...)
 			if _, have := h.PreviousPhotos[cur.CML]; !have && len(old.CML.PhotoRefs) > 0 {
-				h.PreviousPhotos[cur.CML] = photosNamed(e, old.CML.PhotoRefs)
+				if photos == nil {
+					photos = make(map[string]*Photo, len(e.Photos))
+					for _, p := range e.Photos {
+						photos[p.Name] = p
+					}
+				}
+				h.PreviousPhotos[cur.CML] = photosNamed(photos, old.CML.PhotoRefs)
 			}
 		}
 	}
 	for loc := range s.CMLs() {
-		slices.SortStableFunc(loc.CML.Visits, func(a, b Visit) int { return a.Date.Time.Compare(b.Date.Time) })
+		if !slices.IsSortedFunc(loc.CML.Visits, compareVisitDates) {
+			slices.SortStableFunc(loc.CML.Visits, compareVisitDates)
+		}
 		for _, v := range loc.CML.Visits {
 			addVisitDate(loc.Component, v.Date)
 		}
@@ -210,6 +233,9 @@ func sameReadings(a, b []float64) bool {
 	if len(a) != len(b) {
 		return false
 	}
+	if len(a) == 1 {
+		return !(math.Abs(a[0]-b[0]) > 1e-9)
+	}
 	a, b = slices.Clone(a), slices.Clone(b)
 	slices.Sort(a)
 	slices.Sort(b)
@@ -239,13 +265,12 @@ func addVisitDate(c *Component, d VisitDate) {
 	slices.SortFunc(c.VisitDates, func(a, b VisitDate) int { return a.Time.Compare(b.Time) })
 }
 
-func photosNamed(s *Survey, names []string) []*Photo {
+// photosNamed returns the photos of a survey, by name, that names name.
+func photosNamed(byName map[string]*Photo, names []string) []*Photo {
 	var out []*Photo
 	for _, n := range names {
-		for _, p := range s.Photos {
-			if p.Name == n {
-				out = append(out, p)
-			}
+		if p := byName[n]; p != nil {
+			out = append(out, p)
 		}
 	}
 	return out
