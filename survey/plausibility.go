@@ -61,19 +61,25 @@ const (
 func plausibility(s *Survey) ProblemList {
 	var problems ProblemList
 	slipped := map[*Visit]bool{}
-	var work []float64
+	var w plausibilityWork
 	for _, a := range s.Assets {
 		for _, c := range a.Components {
 			for _, m := range c.CMLs {
-				var p ProblemList
-				p, work = readingSlips(s, c, m, slipped, work)
-				problems = append(problems, p...)
+				problems = append(problems, w.readingSlips(s, c, m, slipped)...)
 			}
-			problems = append(problems, steps(s, c, slipped)...)
+			problems = append(problems, w.steps(s, c, slipped)...)
 		}
 		problems = append(problems, farPositions(a)...)
 	}
 	return problems
+}
+
+// plausibilityWork is room the checks reuse from one CML or component to
+// the next.
+type plausibilityWork struct {
+	values, rates, own, mine []float64
+	intervals                []stepInterval
+	bounds                   []int
 }
 
 // reference is a value a reading is judged against, and what it is.
@@ -91,9 +97,10 @@ type reference struct {
 // stands for close to one, tried in that order (the record before the design
 // value). A lone other reading of the same or a later visit is not used: with
 // two values only, the earlier one is trusted. Visits with a slip are marked
-// in slipped; work is room for the values, returned for reuse.
-func readingSlips(s *Survey, c *Component, m *CML, slipped map[*Visit]bool, work []float64) (ProblemList, []float64) {
+// in slipped.
+func (w *plausibilityWork) readingSlips(s *Survey, c *Component, m *CML, slipped map[*Visit]bool) ProblemList {
 	var problems ProblemList
+	work := w.values
 	for i := range m.Visits {
 		v := &m.Visits[i]
 		// The governing readings of the other visits and this visit's
@@ -126,7 +133,8 @@ func readingSlips(s *Survey, c *Component, m *CML, slipped map[*Visit]bool, work
 			}
 		}
 	}
-	return problems, work
+	w.values = work
+	return problems
 }
 
 // slip says what a reading r far off every reference likely stands for, or "".
@@ -171,15 +179,10 @@ func written(u Unit, mm float64) string {
 // CMLs (at least stepRateFloorMMPerY) and times the median of the CML's own
 // other intervals, with a loss above stepMinLossMM. Intervals that touch a
 // reading already warned about as a slip are skipped.
-func steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
-	type interval struct {
-		from, to   *Visit
-		lossMM, mm float64 // loss, and rate in mm/y
-	}
-	var all []interval
-	var cmls []int // all[cmls[k]:cmls[k+1]] are the intervals of one CML
+func (w *plausibilityWork) steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
+	all, bounds := w.intervals[:0], w.bounds[:0] // all[bounds[k]:bounds[k+1]] are the intervals of CML k
 	for _, m := range c.CMLs {
-		cmls = append(cmls, len(all))
+		bounds = append(bounds, len(all))
 		for i := 1; i < len(m.Visits); i++ {
 			a, b := &m.Visits[i-1], &m.Visits[i]
 			y := wallloss.YearsBetween(a.Date.Time, b.Date.Time)
@@ -187,39 +190,40 @@ func steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
 				continue
 			}
 			loss := a.Governing() - b.Governing()
-			all = append(all, interval{a, b, loss, loss / y})
+			all = append(all, stepInterval{a, b, loss, loss / y})
 		}
 	}
-	cmls = append(cmls, len(all))
-	rates := make([]float64, len(all))
-	for i, x := range all {
-		rates[i] = x.mm
+	bounds = append(bounds, len(all))
+	w.intervals, w.bounds = all, bounds
+	rates := w.rates[:0]
+	for _, x := range all {
+		rates = append(rates, x.mm)
 	}
+	w.rates = rates
 	sorted := newSortedValues(rates)
 	var problems ProblemList
-	var own []float64
 	for k, m := range c.CMLs {
-		group := all[cmls[k]:cmls[k+1]]
+		group := all[bounds[k]:bounds[k+1]]
 		if len(all)-len(group) < stepMinOthers {
 			continue
 		}
-		var mine []float64 // this CML's rates, left out of the others'
+		mine := w.mine[:0] // this CML's rates, left out of the others'
+		for _, o := range group {
+			mine = append(mine, o.mm)
+		}
+		w.mine = mine
 		for j, x := range group {
 			if x.lossMM <= stepMinLossMM || slipped[x.from] || slipped[x.to] {
 				continue
 			}
-			if mine == nil {
-				for _, o := range group {
-					mine = append(mine, o.mm)
-				}
-			}
 			med := sorted.medianWithout(mine...)
-			own = own[:0]
+			own := w.own[:0]
 			for i, o := range group {
 				if i != j {
 					own = append(own, o.mm)
 				}
 			}
+			w.own = own
 			if x.mm <= stepRatio*max(med, stepRateFloorMMPerY) || len(own) > 0 && x.mm <= stepRatio*medianSorting(own) {
 				continue
 			}
@@ -228,6 +232,12 @@ func steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
 		}
 	}
 	return problems
+}
+
+// stepInterval is the loss between two consecutive visits of a CML.
+type stepInterval struct {
+	from, to   *Visit
+	lossMM, mm float64 // loss, and rate in mm/y
 }
 
 // rateText writes a rate in mm/y, or in mils per year in an inch survey.

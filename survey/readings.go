@@ -3,7 +3,6 @@ package survey
 import (
 	"fmt"
 	"slices"
-	"sort"
 	"strings"
 
 	"github.com/lossline/lossline/survey/number"
@@ -181,7 +180,7 @@ func (r *checklistReader) addVisitDate(d VisitDate) {
 		}
 	}
 	r.comp.VisitDates = append(r.comp.VisitDates, d)
-	sort.Slice(r.comp.VisitDates, func(i, j int) bool { return r.comp.VisitDates[i].Time.Before(r.comp.VisitDates[j].Time) })
+	slices.SortFunc(r.comp.VisitDates, func(a, b VisitDate) int { return a.Time.Compare(b.Time) })
 }
 
 // noAccess are words written in a reading cell for a reading not taken.
