@@ -61,9 +61,8 @@ type checklistReader struct {
 // its inputs for ComputeRequired.
 func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	r := &checklistReader{
-		file:     file,
-		survey:   &Survey{File: file, Units: MM},
-		cmlLines: map[string]int{},
+		file:   file,
+		survey: &Survey{File: file, Units: MM},
 	}
 	src, line, problem := decodeText(src)
 	if problem != "" {
@@ -82,6 +81,13 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	ctx := parser.NewContext()
 	doc := markdown.Parser().Parse(text.NewReader(r.src), parser.WithContext(ctx))
 	r.frontMatter(ctx)
+	rows := 0 // of the tables at the margin, to size the index of CML ids
+	for n := doc.FirstChild(); n != nil; n = n.NextSibling() {
+		if t, ok := n.(*tableBlock); ok {
+			rows += len(t.rows) - 1
+		}
+	}
+	r.cmlLines = make(map[string]int, rows)
 	for n := doc.FirstChild(); n != nil; n = n.NextSibling() {
 		r.block(n)
 	}
