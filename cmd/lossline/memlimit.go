@@ -3,41 +3,88 @@ package main
 import (
 	"bufio"
 	"bytes"
+	"math"
 	"os"
+	"runtime"
 	"runtime/debug"
+	"runtime/metrics"
 	"strconv"
 	"strings"
+	"sync/atomic"
 )
 
-// minSoftLimit is the lowest soft heap limit set: below it a survey of a
-// few hundred thousand CMLs, whose live heap is a few hundred megabytes,
-// would collect continuously.
-const minSoftLimit = 512 << 20
+// Soft heap limits (runtime/debug.SetMemoryLimit). After each collection
+// the limit is set from the live heap: while it is small, a fixed headroom
+// above it, so that the garbage of the photo stage's decoders (tens of
+// megabytes a photo) is returned promptly and its peak stays near the live
+// heap plus the headroom however many photos there are; above smallHeap,
+// the collector's default pacing (twice the live heap), so that a big
+// survey never collects continuously. Never above the ceiling, half the
+// memory available (at least minCeiling): a survey too big for the machine
+// collects harder instead of running out of memory.
+const (
+	smallHeap  = 160 << 20
+	headroom   = 64 << 20
+	minCeiling = 512 << 20
+)
 
-// setSoftLimit sets the Go heap's soft limit (runtime/debug.SetMemoryLimit)
-// to half the memory available to the process, at least minSoftLimit: a
-// survey too big for the machine then collects harder instead of running out
-// of memory, and an ordinary run is left to the collector's default pacing
-// (twice the live heap). GOMEMLIMIT, when set, wins. The photo stage bounds
-// its own memory by its workers. It returns the limit set, 0 for none.
-func setSoftLimit() int64 {
+// setSoftLimit starts setting the soft limit after each collection, unless
+// GOMEMLIMIT is set, which wins.
+func setSoftLimit() {
 	if os.Getenv("GOMEMLIMIT") != "" {
-		return 0
+		return
 	}
-	limit := softLimit(availableMemory())
-	if limit > 0 {
-		debug.SetMemoryLimit(limit)
-	}
-	return limit
+	p := &pacer{ceiling: ceiling(availableMemory())}
+	p.adjust()
+	p.watch()
 }
 
-// softLimit is the soft heap limit for the memory available, 0 (none) when
-// that is unknown.
-func softLimit(available int64) int64 {
-	if available <= 0 {
-		return 0
+// pacer sets the soft limit from the live heap.
+type pacer struct {
+	ceiling int64
+	stop    atomic.Bool // no more adjusting
+}
+
+// gcTick is garbage whose finalizer runs once the collection after it
+// was made has ended.
+type gcTick struct{ _ *int }
+
+// watch arranges for adjust to run after the next collection, and again
+// after each one.
+func (p *pacer) watch() {
+	runtime.SetFinalizer(&gcTick{}, func(*gcTick) {
+		if !p.stop.Load() {
+			p.adjust()
+			p.watch()
+		}
+	})
+}
+
+func (p *pacer) adjust() {
+	live := []metrics.Sample{{Name: "/gc/heap/live:bytes"}}
+	metrics.Read(live)
+	if live[0].Value.Kind() != metrics.KindUint64 {
+		debug.SetMemoryLimit(p.ceiling)
+		return
 	}
-	return max(available/2, minSoftLimit)
+	debug.SetMemoryLimit(limitFor(int64(live[0].Value.Uint64()), p.ceiling))
+}
+
+// limitFor is the soft limit for a live heap.
+func limitFor(live, ceiling int64) int64 {
+	if live >= smallHeap {
+		return ceiling
+	}
+	return min(live+headroom, ceiling)
+}
+
+// ceiling is the highest soft limit for the memory available: half of it,
+// at least minCeiling; none (the largest int64) when that is unknown.
+func ceiling(available int64) int64 {
+	if available <= 0 {
+		return math.MaxInt64
+	}
+	return max(available/2, minCeiling)
 }
 
 // availableMemory is the memory the process may still use: MemAvailable of
