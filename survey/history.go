@@ -214,8 +214,22 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 // mergeVisits adds the visits of an earlier CML row to the current CML.
 func mergeVisits(cur Located, old *CML) ProblemList {
 	var problems ProblemList
+	visitOn := func(v Visit) int {
+		return slices.IndexFunc(cur.CML.Visits, func(x Visit) bool { return x.Date.Time.Equal(v.Date.Time) })
+	}
+	// Room for exactly the visits added: a CML of a long series grows once
+	// per earlier survey, not by doubling.
+	added := 0
 	for _, v := range old.Visits {
-		i := slices.IndexFunc(cur.CML.Visits, func(x Visit) bool { return x.Date.Time.Equal(v.Date.Time) })
+		if visitOn(v) < 0 {
+			added++
+		}
+	}
+	if n := len(cur.CML.Visits); added > 0 && cap(cur.CML.Visits)-n < added {
+		cur.CML.Visits = append(make([]Visit, 0, n+added), cur.CML.Visits...)
+	}
+	for _, v := range old.Visits {
+		i := visitOn(v)
 		if i < 0 {
 			cur.CML.Visits = append(cur.CML.Visits, v)
 			continue
