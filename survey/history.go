@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
+	"runtime"
 	"slices"
 	"strings"
 )
@@ -46,20 +47,60 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 	}
 	seen := map[string]bool{absPath(dir): true}
 	var earlier []*Survey
+	folder := func(base, d string) string {
+		if base != "" && !filepath.IsAbs(d) {
+			d = filepath.Join(base, d)
+		}
+		return FolderOf(d)
+	}
+	// Folders named together are read at the same time, a few at once, and
+	// taken up in the order named, as if read one after the other.
+	type read struct {
+		s        *Survey
+		problems ProblemList
+	}
+	pending := map[string]chan read{}
+	defer func() {
+		for _, ch := range pending { // named but not taken up: seen by another name
+			<-ch
+		}
+	}()
+	prefetch := func(base string, dirs ...[]string) {
+		for _, list := range dirs {
+			for _, d := range list {
+				d = folder(base, d)
+				if seen[absPath(d)] || pending[d] != nil || len(pending) >= runtime.GOMAXPROCS(0) {
+					continue
+				}
+				ch := make(chan read, 1)
+				pending[d] = ch
+				go func() {
+					e, p := loadFolder(d, opt)
+					ch <- read{e, p}
+				}()
+			}
+		}
+	}
+	load := func(d string) (*Survey, ProblemList) {
+		if ch := pending[d]; ch != nil {
+			delete(pending, d)
+			r := <-ch
+			return r.s, r.problems
+		}
+		return loadFolder(d, opt)
+	}
 	// visit loads the earlier surveys from names in dirs (relative to base) at
 	// line; otherSite when they are named under previous-other-site:.
 	var visit func(from *Survey, dirs []string, line int, base string, otherSite bool)
 	visit = func(from *Survey, dirs []string, line int, base string, otherSite bool) {
+		prefetch(base, dirs)
 		for _, d := range dirs {
-			if base != "" && !filepath.IsAbs(d) {
-				d = filepath.Join(base, d)
-			}
-			d = FolderOf(d)
+			d = folder(base, d)
 			if seen[absPath(d)] {
 				continue
 			}
 			seen[absPath(d)] = true
-			e, p := loadFolder(d, opt)
+			e, p := load(d)
 			if e == nil {
 				problems.Errorf(from.File, line, "previous survey %s cannot be read", d)
 				problems = append(problems, p...)
@@ -77,6 +118,8 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 			visit(e, e.Previous, e.PrevLine, e.Dir, false)
 		}
 	}
+	prefetch(dir, s.OtherSite, s.Previous)
+	prefetch("", extra)
 	visit(s, s.OtherSite, s.OtherSiteLine, dir, true)
 	visit(s, s.Previous, s.PrevLine, dir, false)
 	visit(s, extra, 0, "", false)
