@@ -3,6 +3,7 @@ package survey
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 )
 
@@ -28,24 +29,28 @@ func farPositions(a *Asset) ProblemList {
 		lat[i], lon[i] = m.GPS.Lat, m.GPS.Lon
 	}
 	lats, lons := newSortedValues(lat), newSortedValues(lon)
-	// spreads holds, per median position of the others, the sorted
-	// distances of every placed CML from it.
-	spreads := map[[2]uint64]sortedValues{}
+	// spreads holds, per median position of the others, the distance of
+	// every placed CML from it, and the same sorted.
+	type spread struct {
+		of     []float64 // of placed[i]
+		sorted sortedValues
+	}
+	spreads := map[[2]uint64]spread{}
 	var problems ProblemList
-	for _, m := range placed {
+	for i, m := range placed {
 		center := LatLon{lats.medianWithout(m.GPS.Lat), lons.medianWithout(m.GPS.Lon)}
 		key := [2]uint64{math.Float64bits(center.Lat), math.Float64bits(center.Lon)}
-		spread, ok := spreads[key]
+		sp, ok := spreads[key]
 		if !ok {
-			d := make([]float64, len(placed))
-			for i, o := range placed {
-				d[i] = DistanceM(*o.GPS, center)
+			sp.of = make([]float64, len(placed))
+			for j, o := range placed {
+				sp.of[j] = DistanceM(*o.GPS, center)
 			}
-			spread = newSortedValues(d)
-			spreads[key] = spread
+			sp.sorted = newSortedValues(slices.Clone(sp.of))
+			spreads[key] = sp
 		}
-		d := DistanceM(*m.GPS, center)
-		limit := max(gpsFarM, gpsSpreadFactor*spread.medianWithout(d))
+		d := sp.of[i]
+		limit := max(gpsFarM, gpsSpreadFactor*sp.sorted.medianWithout(d))
 		if d <= limit {
 			continue
 		}
