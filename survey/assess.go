@@ -1,6 +1,7 @@
 package survey
 
 import (
+	"cmp"
 	"slices"
 	"time"
 
@@ -17,20 +18,36 @@ type Assessed struct {
 }
 
 // Assess computes every CML of the survey and ranks them, most urgent first
-// (see wallloss.CompareUrgency).
+// (see wallloss.CompareUrgency); CMLs of equal urgency keep checklist order.
 func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 	latest := s.LatestVisit()
 	if s.InDays(latest) {
 		latest = s.Date // a reading on any of the survey's days belongs to this visit
 	}
-	var items []*Assessed
-	for _, loc := range s.AllCMLs() {
+	block := make([]Assessed, 0, s.CMLCount())
+	for loc := range s.CMLs() {
 		in := inputFor(loc, loc.CML.Visits, latest)
-		items = append(items, &Assessed{Asset: loc.Asset, Component: loc.Component, CML: loc.CML, Result: wallloss.Assess(in, p)})
+		block = append(block, Assessed{Asset: loc.Asset, Component: loc.Component, CML: loc.CML, Result: wallloss.Assess(in, p)})
 	}
-	slices.SortStableFunc(items, func(a, b *Assessed) int { return wallloss.CompareUrgency(a.ranked(), b.ranked()) })
-	for i, it := range items {
-		it.Rank = i + 1
+	// Sort compact keys, not the results: checklist positions break ties.
+	type entry struct {
+		key wallloss.Ranked
+		pos int
+	}
+	order := make([]entry, len(block))
+	for i := range block {
+		order[i] = entry{block[i].ranked(), i}
+	}
+	slices.SortFunc(order, func(a, b entry) int {
+		if c := wallloss.CompareUrgency(a.key, b.key); c != 0 {
+			return c
+		}
+		return cmp.Compare(a.pos, b.pos)
+	})
+	items := make([]*Assessed, len(order))
+	for rank, e := range order {
+		items[rank] = &block[e.pos]
+		items[rank].Rank = rank + 1
 	}
 	return items
 }
@@ -45,20 +62,21 @@ func inputFor(loc Located, visits []Visit, latest time.Time) wallloss.Input {
 	if d.Installed != nil {
 		in.Installed = &d.Installed.Time
 	}
-	for _, v := range visits {
-		in.Readings = append(in.Readings, wallloss.Reading{Date: v.Date.Time, ThicknessMM: v.Governing()})
+	in.Readings = make([]wallloss.Reading, len(visits))
+	for i, v := range visits {
+		in.Readings[i] = wallloss.Reading{Date: v.Date.Time, ThicknessMM: v.Governing()}
 	}
 	return in
 }
 
 func (a *Assessed) ranked() wallloss.Ranked {
-	return wallloss.Ranked{Result: a.Result, Consequence: int(a.Component.Design.Consequence), ID: a.CML.ID}
+	return wallloss.RankedOf(&a.Result, int(a.Component.Design.Consequence), a.CML.ID)
 }
 
 // LatestVisit is the newest visit date found in any reading table.
 func (s *Survey) LatestVisit() time.Time {
 	var t time.Time
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		for _, v := range loc.CML.Visits {
 			if v.Date.Time.After(t) {
 				t = v.Date.Time

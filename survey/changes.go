@@ -94,10 +94,13 @@ var flagsThatFollowVisits = []wallloss.Flag{wallloss.FlagSingleVisit, wallloss.F
 // A CML is accelerating when its latest interval's rate exceeds its long-term
 // rate by more than accelerationPct percent.
 func Changes(s *Survey, items []*Assessed, photos *PhotoIndex, p wallloss.Policy, accelerationPct float64) []Change {
-	var out []Change
+	out := make([]Change, 0, len(items))
 	for _, it := range items {
 		c := Change{Item: it, WindowBefore: wallloss.WindowUnknown}
 		visits := it.CML.Visits
+		if len(visits) > 1 {
+			c.Intervals = make([]IntervalRate, 0, len(visits)-1)
+		}
 		for i := 1; i < len(visits); i++ {
 			a, b := visits[i-1], visits[i]
 			c.Intervals = append(c.Intervals, IntervalRate{Start: a.Date.Time, End: b.Date.Time,

@@ -18,26 +18,40 @@ import (
 	east "github.com/yuin/goldmark/extension/ast"
 	"github.com/yuin/goldmark/parser"
 	"github.com/yuin/goldmark/text"
+	"github.com/yuin/goldmark/util"
 
 	"github.com/lossline/lossline/survey/number"
 	"github.com/lossline/lossline/survey/required"
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
-// markdown parses checklists: front matter, GFM tables and task lists only
-// (full GFM would also turn bare addresses in cells into links).
-var markdown = goldmark.New(goldmark.WithExtensions(meta.Meta, extension.Table, extension.TaskList))
+// markdown parses checklists: front matter, GFM tables (tableFinder) and task
+// lists only (full GFM would also turn bare addresses in cells into links).
+// The reader takes all text from the source, so of inline Markdown only the
+// task list's check box is parsed.
+var markdown = goldmark.New(
+	goldmark.WithParser(parser.NewParser(
+		parser.WithBlockParsers(parser.DefaultBlockParsers()...),
+		parser.WithParagraphTransformers(append(parser.DefaultParagraphTransformers(), util.Prioritized(tableFinder{}, 200))...),
+	)),
+	goldmark.WithExtensions(meta.Meta, extension.TaskList),
+)
 
 // checklistReader holds the state of one ParseChecklist call.
 type checklistReader struct {
 	file     string
 	src      []byte
+	text     string // src as a string: cells, ids and names are parts of it
 	lines    lineIndex
 	survey   *Survey
 	problems ProblemList
 	asset    *Asset
 	comp     *Component
 	cmlLines map[string]int // CML id -> line of first use
+
+	blocks       rowBlocks
+	readings     []float64 // a cell's readings while it is read
+	visitColumns int       // of the table being read
 }
 
 // ParseChecklist reads a survey.md, in UTF-8 (with or without a byte-order
@@ -47,9 +61,8 @@ type checklistReader struct {
 // its inputs for ComputeRequired.
 func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	r := &checklistReader{
-		file:     file,
-		survey:   &Survey{File: file, Units: MM},
-		cmlLines: map[string]int{},
+		file:   file,
+		survey: &Survey{File: file, Units: MM},
 	}
 	src, line, problem := decodeText(src)
 	if problem != "" {
@@ -63,10 +76,18 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 		return r.survey, r.problems
 	}
 	r.src = r.placeholders(src)
+	r.text = string(r.src)
 	r.lines = newLineIndex(r.src)
 	ctx := parser.NewContext()
 	doc := markdown.Parser().Parse(text.NewReader(r.src), parser.WithContext(ctx))
 	r.frontMatter(ctx)
+	rows := 0 // of the tables at the margin, to size the index of CML ids
+	for n := doc.FirstChild(); n != nil; n = n.NextSibling() {
+		if t, ok := n.(*tableBlock); ok {
+			rows += len(t.rows) - 1
+		}
+	}
+	r.cmlLines = make(map[string]int, rows)
 	for n := doc.FirstChild(); n != nil; n = n.NextSibling() {
 		r.block(n)
 	}
@@ -182,13 +203,16 @@ var yamlLine = regexp.MustCompile(`line (\d+): `)
 
 // keyLine finds the line of `key:` in the front matter, or 1.
 func (r *checklistReader) keyLine(key string) int {
-	for i, l := range strings.Split(string(r.src), "\n") {
-		if i > 0 && strings.TrimSpace(l) == "---" {
+	i := 0
+	for l := range strings.Lines(r.text) {
+		l = strings.TrimSpace(l)
+		if i > 0 && l == "---" {
 			break
 		}
-		if strings.HasPrefix(strings.TrimSpace(l), key+":") {
+		if strings.HasPrefix(l, key) && strings.HasPrefix(l[len(key):], ":") {
 			return i + 1
 		}
+		i++
 	}
 	return 1
 }
@@ -208,7 +232,7 @@ func (r *checklistReader) block(n ast.Node) {
 		r.heading(n)
 	case *ast.List:
 		r.list(n)
-	case *east.Table:
+	case *tableBlock:
 		r.table(n)
 	case *ast.Paragraph:
 		if r.pipeRows(n) {
@@ -243,9 +267,9 @@ func (r *checklistReader) pipeRows(p *ast.Paragraph) bool {
 		return false
 	}
 	line := r.lineOf(p)
-	cells := splitRow(first.Value(r.src))
+	cells := splitRow(nil, string(first.Value(r.src)))
 	header := len(cells) > 0 && strings.EqualFold(cells[0], "cml")
-	if _, after := p.PreviousSibling().(*east.Table); after && !header {
+	if _, after := p.PreviousSibling().(*tableBlock); after && !header {
 		r.problems.Errorf(r.file, line, "these | rows are not part of the table above: a blank line ends a table")
 	} else {
 		r.problems.Errorf(r.file, line, "these | rows are not a table: under the header row write a separator row with one cell per column, such as |---|---|")

@@ -29,7 +29,7 @@ func joinSurveyDays(s *Survey) {
 	if s.Days <= 1 {
 		return
 	}
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		m := loc.CML
 		first := -1
 		var kept []Visit

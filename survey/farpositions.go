@@ -3,12 +3,15 @@ package survey
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 )
 
 // farPositions warns of CMLs whose gps position lies far from the median
 // position of the asset's other CMLs (see gpsFarM), saying which slip —
 // a changed sign, latitude and longitude swapped — would bring it near.
+// Leaving one CML out moves the median position to one of a few places, so
+// the distances to each such place are sorted once: n log n in the CMLs.
 func farPositions(a *Asset) ProblemList {
 	var placed []*CML
 	for _, c := range a.Components {
@@ -18,24 +21,36 @@ func farPositions(a *Asset) ProblemList {
 			}
 		}
 	}
+	if len(placed)-1 < gpsMinOthers {
+		return nil
+	}
+	lat, lon := make([]float64, len(placed)), make([]float64, len(placed))
+	for i, m := range placed {
+		lat[i], lon[i] = m.GPS.Lat, m.GPS.Lon
+	}
+	lats, lons := newSortedValues(lat), newSortedValues(lon)
+	// spreads holds, per median position of the others, the distance of
+	// every placed CML from it, and the same sorted.
+	type spread struct {
+		of     []float64 // of placed[i]
+		sorted sortedValues
+	}
+	spreads := map[[2]uint64]spread{}
 	var problems ProblemList
-	for _, m := range placed {
-		var others []LatLon
-		for _, o := range placed {
-			if o != m {
-				others = append(others, *o.GPS)
+	for i, m := range placed {
+		center := LatLon{lats.medianWithout(m.GPS.Lat), lons.medianWithout(m.GPS.Lon)}
+		key := [2]uint64{math.Float64bits(center.Lat), math.Float64bits(center.Lon)}
+		sp, ok := spreads[key]
+		if !ok {
+			sp.of = make([]float64, len(placed))
+			for j, o := range placed {
+				sp.of[j] = DistanceM(*o.GPS, center)
 			}
+			sp.sorted = newSortedValues(slices.Clone(sp.of))
+			spreads[key] = sp
 		}
-		if len(others) < gpsMinOthers {
-			continue
-		}
-		center := medianPosition(others)
-		spread := make([]float64, len(others))
-		for i, o := range others {
-			spread[i] = DistanceM(o, center)
-		}
-		limit := max(gpsFarM, gpsSpreadFactor*median(spread))
-		d := DistanceM(*m.GPS, center)
+		d := sp.of[i]
+		limit := max(gpsFarM, gpsSpreadFactor*sp.sorted.medianWithout(d))
 		if d <= limit {
 			continue
 		}
@@ -77,16 +92,6 @@ func positionSlips(p LatLon) []positionSlip {
 		)
 	}
 	return out
-}
-
-// medianPosition is the median latitude and the median longitude (fine over
-// a site, not across the antimeridian).
-func medianPosition(ps []LatLon) LatLon {
-	lat, lon := make([]float64, len(ps)), make([]float64, len(ps))
-	for i, p := range ps {
-		lat[i], lon[i] = p.Lat, p.Lon
-	}
-	return LatLon{median(lat), median(lon)}
 }
 
 func positionText(p LatLon) string {

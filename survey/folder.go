@@ -7,7 +7,6 @@ import (
 	"os"
 	"path"
 	"path/filepath"
-	"slices"
 	"strings"
 )
 
@@ -120,11 +119,13 @@ func sorted(s *Survey, problems ProblemList) (*Survey, ProblemList) {
 // photos found, inside the survey folder only.
 func linkPhotos(s *Survey) ProblemList {
 	var problems ProblemList
-	byName := map[string]*Photo{}
+	byName := make(map[string]*Photo, len(s.Photos))
 	for _, p := range s.Photos {
 		byName[p.Name] = p
 	}
-	for _, loc := range s.AllCMLs() {
+	var names []string            // of the photos, for suggestions; made at the first missing one
+	var skipped map[string]string // why a file was skipped, by name; likewise
+	for loc := range s.CMLs() {
 		m := loc.CML
 		for i, ref := range m.PhotoRefs {
 			name := path.Clean(strings.ReplaceAll(ref, `\`, "/"))
@@ -134,17 +135,24 @@ func linkPhotos(s *Survey) ProblemList {
 			}
 			p, ok := byName[name]
 			if !ok {
-				why := "is not in " + filepath.Join(s.Dir, PhotoDir) + didYouMean(closeNames(name, photoNames(s), 3))
-				for _, sk := range s.Skipped {
-					if sk.Name == name {
-						why = "was skipped: " + sk.Reason
+				if names == nil {
+					names = photoNames(s)
+					skipped = make(map[string]string, len(s.Skipped))
+					for _, sk := range s.Skipped {
+						skipped[sk.Name] = sk.Reason
 					}
+				}
+				why := "is not in " + filepath.Join(s.Dir, PhotoDir) + didYouMean(closeNames(name, names, 3))
+				if reason, ok := skipped[name]; ok {
+					why = "was skipped: " + reason
 				}
 				problems.Errorf(s.File, m.Line, "photo %q of CML %s %s", ref, m.ID, why)
 				continue
 			}
 			m.PhotoRefs[i] = name
-			if !slices.Contains(p.CMLs, m.ID) {
+			// A checklist lists a CML once, so only this CML's own earlier
+			// references to the photo can have added its id.
+			if n := len(p.CMLs); n == 0 || p.CMLs[n-1] != m.ID {
 				p.CMLs = append(p.CMLs, m.ID)
 			}
 		}

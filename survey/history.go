@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
+	"runtime"
 	"slices"
 	"strings"
 )
@@ -46,20 +47,60 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 	}
 	seen := map[string]bool{absPath(dir): true}
 	var earlier []*Survey
+	folder := func(base, d string) string {
+		if base != "" && !filepath.IsAbs(d) {
+			d = filepath.Join(base, d)
+		}
+		return FolderOf(d)
+	}
+	// Folders named together are read at the same time, a few at once, and
+	// taken up in the order named, as if read one after the other.
+	type read struct {
+		s        *Survey
+		problems ProblemList
+	}
+	pending := map[string]chan read{}
+	defer func() {
+		for _, ch := range pending { // named but not taken up: seen by another name
+			<-ch
+		}
+	}()
+	prefetch := func(base string, dirs ...[]string) {
+		for _, list := range dirs {
+			for _, d := range list {
+				d = folder(base, d)
+				if seen[absPath(d)] || pending[d] != nil || len(pending) >= runtime.GOMAXPROCS(0) {
+					continue
+				}
+				ch := make(chan read, 1)
+				pending[d] = ch
+				go func() {
+					e, p := loadFolder(d, opt)
+					ch <- read{e, p}
+				}()
+			}
+		}
+	}
+	load := func(d string) (*Survey, ProblemList) {
+		if ch := pending[d]; ch != nil {
+			delete(pending, d)
+			r := <-ch
+			return r.s, r.problems
+		}
+		return loadFolder(d, opt)
+	}
 	// visit loads the earlier surveys from names in dirs (relative to base) at
 	// line; otherSite when they are named under previous-other-site:.
 	var visit func(from *Survey, dirs []string, line int, base string, otherSite bool)
 	visit = func(from *Survey, dirs []string, line int, base string, otherSite bool) {
+		prefetch(base, dirs)
 		for _, d := range dirs {
-			if base != "" && !filepath.IsAbs(d) {
-				d = filepath.Join(base, d)
-			}
-			d = FolderOf(d)
+			d = folder(base, d)
 			if seen[absPath(d)] {
 				continue
 			}
 			seen[absPath(d)] = true
-			e, p := loadFolder(d, opt)
+			e, p := load(d)
 			if e == nil {
 				problems.Errorf(from.File, line, "previous survey %s cannot be read", d)
 				problems = append(problems, p...)
@@ -77,6 +118,8 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 			visit(e, e.Previous, e.PrevLine, e.Dir, false)
 		}
 	}
+	prefetch(dir, s.OtherSite, s.Previous)
+	prefetch("", extra)
 	visit(s, s.OtherSite, s.OtherSiteLine, dir, true)
 	visit(s, s.Previous, s.PrevLine, dir, false)
 	visit(s, extra, 0, "", false)
@@ -98,7 +141,7 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 // the component, once every earlier survey is merged in.
 func readingChecks(s *Survey) ProblemList {
 	var problems ProblemList
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		m, d := loc.CML, loc.Component.Design
 		if len(m.Visits) == 0 {
 			problems.Warnf(m.File, m.Line, "CML %s has no readings", m.ID)
@@ -129,11 +172,11 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 	h := &History{Earlier: earlier, PreviousPhotos: map[*CML][]*Photo{}}
 	s.History = h
 
-	byID := map[string]Located{}
-	for _, loc := range s.AllCMLs() {
+	byID := make(map[string]Located, s.CMLCount())
+	for loc := range s.CMLs() {
 		byID[loc.CML.ID] = loc
 	}
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		for _, old := range loc.CML.Was {
 			if other, taken := byID[old]; taken && other.CML != loc.CML {
 				problems.Errorf(s.File, loc.CML.Line, "CML %s was %s, but %s is still a CML of this survey (line %d)", loc.CML.ID, old, old, other.CML.Line)
@@ -149,13 +192,25 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 		}
 	}
 	predecessors := map[*Component][]*Component{}
+	var last [2]*Component // the pair of components last recorded as predecessors
 	dropped := map[string]bool{}
+	scope := s.scope()
+	covered := map[*Component]bool{} // earlier components the scope covers
+	carry := newCarrier(s)
 	for _, e := range earlier {
-		for _, old := range e.AllCMLs() {
+		var photos map[string]*Photo // e's photos by name, made when a CML names one
+		for old := range e.CMLs() {
 			cur, ok := byID[old.CML.ID]
-			if !ok && len(old.CML.Visits) > 0 && !s.covers(old.Asset.Name, old.Component.Name) {
-				cur, ok = carryIn(s, old), true
-				byID[old.CML.ID] = cur
+			if !ok && len(old.CML.Visits) > 0 {
+				in, known := covered[old.Component]
+				if !known {
+					in = scope.covers(old.Asset.Name, old.Component.Name)
+					covered[old.Component] = in
+				}
+				if !in {
+					cur, ok = carry.carryIn(old), true
+					byID[old.CML.ID] = cur
+				}
 			}
 			if !ok {
 				if !dropped[old.CML.ID] && len(old.CML.Visits) > 0 {
@@ -165,17 +220,28 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 				}
 				continue
 			}
-			if !slices.Contains(predecessors[cur.Component], old.Component) {
-				predecessors[cur.Component] = append(predecessors[cur.Component], old.Component)
+			if pair := [2]*Component{cur.Component, old.Component}; pair != last {
+				if !slices.Contains(predecessors[cur.Component], old.Component) {
+					predecessors[cur.Component] = append(predecessors[cur.Component], old.Component)
+				}
+				last = pair
 			}
 			problems = append(problems, mergeVisits(cur, old.CML)...)
 			if _, have := h.PreviousPhotos[cur.CML]; !have && len(old.CML.PhotoRefs) > 0 {
-				h.PreviousPhotos[cur.CML] = photosNamed(e, old.CML.PhotoRefs)
+				if photos == nil {
+					photos = make(map[string]*Photo, len(e.Photos))
+					for _, p := range e.Photos {
+						photos[p.Name] = p
+					}
+				}
+				h.PreviousPhotos[cur.CML] = photosNamed(photos, old.CML.PhotoRefs)
 			}
 		}
 	}
-	for _, loc := range s.AllCMLs() {
-		slices.SortStableFunc(loc.CML.Visits, func(a, b Visit) int { return a.Date.Time.Compare(b.Date.Time) })
+	for loc := range s.CMLs() {
+		if !slices.IsSortedFunc(loc.CML.Visits, compareVisitDates) {
+			slices.SortStableFunc(loc.CML.Visits, compareVisitDates)
+		}
 		for _, v := range loc.CML.Visits {
 			addVisitDate(loc.Component, v.Date)
 		}
@@ -191,8 +257,22 @@ func Merge(s *Survey, earlier []*Survey) ProblemList {
 // mergeVisits adds the visits of an earlier CML row to the current CML.
 func mergeVisits(cur Located, old *CML) ProblemList {
 	var problems ProblemList
+	visitOn := func(v Visit) int {
+		return slices.IndexFunc(cur.CML.Visits, func(x Visit) bool { return x.Date.Time.Equal(v.Date.Time) })
+	}
+	// Room for exactly the visits added: a CML of a long series grows once
+	// per earlier survey, not by doubling.
+	added := 0
 	for _, v := range old.Visits {
-		i := slices.IndexFunc(cur.CML.Visits, func(x Visit) bool { return x.Date.Time.Equal(v.Date.Time) })
+		if visitOn(v) < 0 {
+			added++
+		}
+	}
+	if n := len(cur.CML.Visits); added > 0 && cap(cur.CML.Visits)-n < added {
+		cur.CML.Visits = append(make([]Visit, 0, n+added), cur.CML.Visits...)
+	}
+	for _, v := range old.Visits {
+		i := visitOn(v)
 		if i < 0 {
 			cur.CML.Visits = append(cur.CML.Visits, v)
 			continue
@@ -209,6 +289,9 @@ func mergeVisits(cur Located, old *CML) ProblemList {
 func sameReadings(a, b []float64) bool {
 	if len(a) != len(b) {
 		return false
+	}
+	if len(a) == 1 {
+		return !(math.Abs(a[0]-b[0]) > 1e-9)
 	}
 	a, b = slices.Clone(a), slices.Clone(b)
 	slices.Sort(a)
@@ -239,13 +322,12 @@ func addVisitDate(c *Component, d VisitDate) {
 	slices.SortFunc(c.VisitDates, func(a, b VisitDate) int { return a.Time.Compare(b.Time) })
 }
 
-func photosNamed(s *Survey, names []string) []*Photo {
+// photosNamed returns the photos of a survey, by name, that names name.
+func photosNamed(byName map[string]*Photo, names []string) []*Photo {
 	var out []*Photo
 	for _, n := range names {
-		for _, p := range s.Photos {
-			if p.Name == n {
-				out = append(out, p)
-			}
+		if p := byName[n]; p != nil {
+			out = append(out, p)
 		}
 	}
 	return out

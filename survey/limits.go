@@ -182,7 +182,7 @@ func (s *limitScan) countCells(n int, l []byte) *Problem {
 			continue
 		}
 		size++
-		if bytes.IndexByte([]byte(markChars), l[i]) >= 0 {
+		if isMark(l[i]) {
 			marks++
 		}
 	}
@@ -440,10 +440,18 @@ func headerCells(l []byte) int {
 func countMarks(l []byte) int {
 	n := 0
 	for _, b := range l {
-		switch b {
-		case '[', '`', '*', '_', '<', '\\':
+		if isMark(b) {
 			n++
 		}
 	}
 	return n
+}
+
+// isMark reports whether b is one of markChars.
+func isMark(b byte) bool {
+	switch b {
+	case '[', '`', '*', '_', '<', '\\':
+		return true
+	}
+	return false
 }

@@ -1,6 +1,7 @@
 package survey
 
 import (
+	"iter"
 	"time"
 
 	"github.com/lossline/lossline/survey/required"
@@ -200,16 +201,39 @@ type SkippedFile struct {
 }
 
 // AllCMLs returns every CML in checklist order with its asset and component.
+// Code that only walks them ranges over CMLs instead, which builds no list.
 func (s *Survey) AllCMLs() []Located {
-	var out []Located
-	for _, a := range s.Assets {
-		for _, c := range a.Components {
-			for _, m := range c.CMLs {
-				out = append(out, Located{Asset: a, Component: c, CML: m})
+	out := make([]Located, 0, s.CMLCount())
+	for loc := range s.CMLs() {
+		out = append(out, loc)
+	}
+	return out
+}
+
+// CMLs yields every CML in checklist order with its asset and component.
+func (s *Survey) CMLs() iter.Seq[Located] {
+	return func(yield func(Located) bool) {
+		for _, a := range s.Assets {
+			for _, c := range a.Components {
+				for _, m := range c.CMLs {
+					if !yield(Located{Asset: a, Component: c, CML: m}) {
+						return
+					}
+				}
 			}
 		}
 	}
-	return out
+}
+
+// CMLCount is the number of CMLs of the survey.
+func (s *Survey) CMLCount() int {
+	n := 0
+	for _, a := range s.Assets {
+		for _, c := range a.Components {
+			n += len(c.CMLs)
+		}
+	}
+	return n
 }
 
 // Located is a CML with the asset and component it belongs to.

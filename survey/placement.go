@@ -1,7 +1,10 @@
 package survey
 
 import (
+	"cmp"
 	"math"
+	"slices"
+	"sort"
 	"time"
 )
 
@@ -53,9 +56,105 @@ type PlaceOptions struct {
 // extends 50 m beyond a component's or asset's outermost CML.
 var DefaultPlaceOptions = PlaceOptions{Auto: true, RadiusM: 15, AreaRadiusM: 50}
 
+// positions are the CMLs with a gps position, in checklist order, indexed
+// for placing photos: by latitude, so the nearest CML is found among those
+// near the photo's latitude, and by component and asset for their areas,
+// each worked out once.
+type positions struct {
+	pts    []positioned
+	byLat  []int     // indexes into pts, by latitude
+	lats   []float64 // their latitudes
+	comps  map[*Component]*area
+	assets map[*Asset]*area
+}
+
 type positioned struct {
 	loc Located
 	at  LatLon
+}
+
+// area is the circle about the centroid of some CML positions that holds
+// them all; its points are kept until it is first used.
+type area struct {
+	points []LatLon
+	center LatLon
+	extent float64
+}
+
+func newPositions(s *Survey) *positions {
+	ps := &positions{comps: map[*Component]*area{}, assets: map[*Asset]*area{}}
+	for loc := range s.CMLs() {
+		if loc.CML.GPS == nil {
+			continue
+		}
+		p := *loc.CML.GPS
+		ps.pts = append(ps.pts, positioned{loc, p})
+		c, a := ps.comps[loc.Component], ps.assets[loc.Asset]
+		if c == nil {
+			c = &area{}
+			ps.comps[loc.Component] = c
+		}
+		if a == nil {
+			a = &area{}
+			ps.assets[loc.Asset] = a
+		}
+		c.points, a.points = append(c.points, p), append(a.points, p)
+	}
+	ps.byLat = make([]int, len(ps.pts))
+	for i := range ps.byLat {
+		ps.byLat[i] = i
+	}
+	slices.SortFunc(ps.byLat, func(i, j int) int { return cmp.Compare(ps.pts[i].at.Lat, ps.pts[j].at.Lat) })
+	ps.lats = make([]float64, len(ps.pts))
+	for k, i := range ps.byLat {
+		ps.lats[k] = ps.pts[i].at.Lat
+	}
+	return ps
+}
+
+// nearest returns the index in pts of the CML nearest to at, the first in
+// checklist order of equally near ones, and its distance. It tries CMLs
+// from at's latitude outwards and stops where the difference in latitude
+// alone puts a CML further than the nearest found.
+func (ps *positions) nearest(at LatLon) (int, float64) {
+	best, bestD := -1, math.Inf(1)
+	hi := sort.SearchFloat64s(ps.lats, at.Lat)
+	lo := hi - 1
+	for lo >= 0 || hi < len(ps.lats) {
+		var k int
+		if hi == len(ps.lats) || lo >= 0 && at.Lat-ps.lats[lo] <= ps.lats[hi]-at.Lat {
+			k, lo = lo, lo-1
+		} else {
+			k, hi = hi, hi+1
+		}
+		if meridianM(ps.lats[k]-at.Lat) > bestD {
+			break
+		}
+		i := ps.byLat[k]
+		if d := DistanceM(at, ps.pts[i].at); d < bestD || d == bestD && i < best {
+			best, bestD = i, d
+		}
+	}
+	return best, bestD
+}
+
+// meridianM is a lower bound of the distance between two positions whose
+// latitudes differ by dLat degrees: the length of that arc of a meridian,
+// less a margin for rounding.
+func meridianM(dLat float64) float64 {
+	return EarthRadiusM*math.Abs(dLat)*math.Pi/180*(1-1e-9) - 1e-6
+}
+
+// distance is how far a position lies outside the area (0 inside).
+func (a *area) distance(at LatLon) float64 {
+	if a.points != nil {
+		a.center = Centroid(a.points)
+		for _, p := range a.points {
+			a.extent = math.Max(a.extent, DistanceM(a.center, p))
+		}
+		a.points = nil
+	}
+	return math.Max(DistanceM(a.center, at)-a.extent, 0)
 }
 
 // PlacePhotos places every photo of s: a photo a CML names goes to that CML;
@@ -65,14 +164,9 @@ type positioned struct {
 // for photos taken outside the survey days (front matter date and days).
 func PlacePhotos(s *Survey, opt PlaceOptions) ProblemList {
 	var problems ProblemList
-	var pts []positioned
-	for _, loc := range s.AllCMLs() {
-		if loc.CML.GPS != nil {
-			pts = append(pts, positioned{loc, *loc.CML.GPS})
-		}
-	}
+	var ps *positions // made when the first photo is placed by position
 	named := map[string]Located{}
-	for _, loc := range s.AllCMLs() {
+	for loc := range s.CMLs() {
 		for _, ref := range loc.CML.PhotoRefs {
 			if _, ok := named[ref]; !ok {
 				named[ref] = loc
@@ -102,52 +196,35 @@ func PlacePhotos(s *Survey, opt PlaceOptions) ProblemList {
 			ph.Placement = Placement{Basis: UnplacedAutoOff}
 		case ph.GPS == nil:
 			ph.Placement = Placement{Basis: UnplacedNoGPS}
-		case len(pts) == 0:
-			ph.Placement = Placement{Basis: UnplacedNoTargets}
 		default:
-			ph.Placement = placeByPosition(*ph.GPS, pts, opt)
+			if ps == nil {
+				ps = newPositions(s)
+			}
+			if len(ps.pts) == 0 {
+				ph.Placement = Placement{Basis: UnplacedNoTargets}
+				break
+			}
+			ph.Placement = ps.place(*ph.GPS, opt)
 		}
 	}
 	return problems
 }
 
-func placeByPosition(at LatLon, pts []positioned, opt PlaceOptions) Placement {
-	best, bestD := -1, math.Inf(1)
-	for i, p := range pts {
-		if d := DistanceM(at, p.at); d < bestD {
-			best, bestD = i, d
-		}
-	}
-	loc := pts[best].loc
+// place places a photo at a position: on the nearest CML within RadiusM,
+// else on the area of that CML's component, then of its asset, within
+// AreaRadiusM.
+func (ps *positions) place(at LatLon, opt PlaceOptions) Placement {
+	best, bestD := ps.nearest(at)
+	loc := ps.pts[best].loc
 	if bestD <= opt.RadiusM {
 		return Placement{Asset: loc.Asset.Name, Component: loc.Component.Name, CML: loc.CML.ID, DistanceM: &bestD, Basis: PlacedNearestCML}
 	}
 	// Areas: a component's (then an asset's) CML positions, grown by AreaRadiusM.
-	if d, ok := areaDistance(at, pts, func(p positioned) bool { return p.loc.Component == loc.Component }); ok && d <= opt.AreaRadiusM {
+	if d := ps.comps[loc.Component].distance(at); d <= opt.AreaRadiusM {
 		return Placement{Asset: loc.Asset.Name, Component: loc.Component.Name, DistanceM: &d, Basis: PlacedComponent}
 	}
-	if d, ok := areaDistance(at, pts, func(p positioned) bool { return p.loc.Asset == loc.Asset }); ok && d <= opt.AreaRadiusM {
+	if d := ps.assets[loc.Asset].distance(at); d <= opt.AreaRadiusM {
 		return Placement{Asset: loc.Asset.Name, DistanceM: &d, Basis: PlacedAsset}
 	}
 	return Placement{Basis: UnplacedTooFar, DistanceM: &bestD}
-}
-
-// areaDistance is how far a position lies outside the circle about the
-// centroid of the selected CML positions that holds them all (0 inside).
-func areaDistance(at LatLon, pts []positioned, in func(positioned) bool) (float64, bool) {
-	var sel []LatLon
-	for _, p := range pts {
-		if in(p) {
-			sel = append(sel, p.at)
-		}
-	}
-	if len(sel) == 0 {
-		return 0, false
-	}
-	c := Centroid(sel)
-	var extent float64
-	for _, p := range sel {
-		extent = math.Max(extent, DistanceM(c, p))
-	}
-	return math.Max(DistanceM(c, at)-extent, 0), true
 }

@@ -3,7 +3,6 @@ package survey
 import (
 	"fmt"
 	"math"
-	"slices"
 	"strconv"
 
 	"github.com/lossline/lossline/survey/wallloss"
@@ -56,19 +55,31 @@ const (
 // plausibility warns of readings, steps between visits and positions that
 // look like typing slips. It is pure over the merged survey, so earlier
 // visits count, and each warning points at the reading's or row's line.
+// Each value is judged against a median of the others, found in a list
+// sorted once per CML, component or asset: the cost grows as n log n in
+// the CMLs of a component or asset.
 func plausibility(s *Survey) ProblemList {
 	var problems ProblemList
+	slipped := map[*Visit]bool{}
+	var w plausibilityWork
 	for _, a := range s.Assets {
 		for _, c := range a.Components {
-			slipped := map[*Visit]bool{}
 			for _, m := range c.CMLs {
-				problems = append(problems, readingSlips(s, c, m, slipped)...)
+				problems = append(problems, w.readingSlips(s, c, m, slipped)...)
 			}
-			problems = append(problems, steps(s, c, slipped)...)
+			problems = append(problems, w.steps(s, c, slipped)...)
 		}
 		problems = append(problems, farPositions(a)...)
 	}
 	return problems
+}
+
+// plausibilityWork is room the checks reuse from one CML or component to
+// the next.
+type plausibilityWork struct {
+	values, rates, own, mine []float64
+	intervals                []stepInterval
+	bounds                   []int
 }
 
 // reference is a value a reading is judged against, and what it is.
@@ -85,38 +96,44 @@ type reference struct {
 // against its nominal; it must be far off every one of them, and the value it
 // stands for close to one, tried in that order (the record before the design
 // value). A lone other reading of the same or a later visit is not used: with
-// two values only, the earlier one is trusted.
-func readingSlips(s *Survey, c *Component, m *CML, slipped map[*Visit]bool) ProblemList {
+// two values only, the earlier one is trusted. Visits with a slip are marked
+// in slipped.
+func (w *plausibilityWork) readingSlips(s *Survey, c *Component, m *CML, slipped map[*Visit]bool) ProblemList {
 	var problems ProblemList
+	work := w.values
 	for i := range m.Visits {
 		v := &m.Visits[i]
-		for j, r := range v.ReadingsMM {
-			var refs []reference
-			var others []float64
-			lone := true // the only other value is not of an earlier visit
-			for k, o := range m.Visits {
-				if k != i {
-					others = append(others, o.Governing())
-					lone = lone && k > i
-				}
+		// The governing readings of the other visits and this visit's
+		// readings, sorted; each reading is judged against them without itself.
+		work = work[:0]
+		lone := true // the only other value is not of an earlier visit
+		for k, o := range m.Visits {
+			if k != i {
+				work = append(work, o.Governing())
+				lone = lone && k > i
 			}
-			for k, o := range v.ReadingsMM {
-				if k != j {
-					others = append(others, o)
-				}
-			}
-			if len(others) > 1 || len(others) == 1 && !lone {
-				refs = append(refs, reference{median(others), "other readings", len(others)})
+		}
+		work = append(work, v.ReadingsMM...)
+		values := newSortedValues(work)
+		others := len(values) - 1
+		for _, r := range v.ReadingsMM {
+			var refs [2]reference
+			n := 0
+			if others > 1 || others == 1 && !lone {
+				refs[n] = reference{values.medianWithout(r), "other readings", others}
+				n++
 			}
 			if c.Design.NominalMM != nil {
-				refs = append(refs, reference{*c.Design.NominalMM, "nominal", 1})
+				refs[n] = reference{*c.Design.NominalMM, "nominal", 1}
+				n++
 			}
-			if msg := slip(s.Units, r, refs); msg != "" {
+			if msg := slip(s.Units, r, refs[:n]); msg != "" {
 				slipped[v] = true
 				problems.Warnf(v.File, v.Line, "CML %s, visit %s: reading %s %s", m.ID, v.Date, written(s.Units, r), msg)
 			}
 		}
 	}
+	w.values = work
 	return problems
 }
 
@@ -162,14 +179,10 @@ func written(u Unit, mm float64) string {
 // CMLs (at least stepRateFloorMMPerY) and times the median of the CML's own
 // other intervals, with a loss above stepMinLossMM. Intervals that touch a
 // reading already warned about as a slip are skipped.
-func steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
-	type interval struct {
-		m          *CML
-		from, to   *Visit
-		lossMM, mm float64 // loss, and rate in mm/y
-	}
-	var all []interval
+func (w *plausibilityWork) steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
+	all, bounds := w.intervals[:0], w.bounds[:0] // all[bounds[k]:bounds[k+1]] are the intervals of CML k
 	for _, m := range c.CMLs {
+		bounds = append(bounds, len(all))
 		for i := 1; i < len(m.Visits); i++ {
 			a, b := &m.Visits[i-1], &m.Visits[i]
 			y := wallloss.YearsBetween(a.Date.Time, b.Date.Time)
@@ -177,34 +190,54 @@ func steps(s *Survey, c *Component, slipped map[*Visit]bool) ProblemList {
 				continue
 			}
 			loss := a.Governing() - b.Governing()
-			all = append(all, interval{m, a, b, loss, loss / y})
+			all = append(all, stepInterval{a, b, loss, loss / y})
 		}
 	}
-	var problems ProblemList
+	bounds = append(bounds, len(all))
+	w.intervals, w.bounds = all, bounds
+	rates := w.rates[:0]
 	for _, x := range all {
-		if x.lossMM <= stepMinLossMM || slipped[x.from] || slipped[x.to] {
+		rates = append(rates, x.mm)
+	}
+	w.rates = rates
+	sorted := newSortedValues(rates)
+	var problems ProblemList
+	for k, m := range c.CMLs {
+		group := all[bounds[k]:bounds[k+1]]
+		if len(all)-len(group) < stepMinOthers {
 			continue
 		}
-		var others, own []float64
-		for _, o := range all {
-			switch {
-			case o.m != x.m:
-				others = append(others, o.mm)
-			case o.to != x.to:
-				own = append(own, o.mm)
+		mine := w.mine[:0] // this CML's rates, left out of the others'
+		for _, o := range group {
+			mine = append(mine, o.mm)
+		}
+		w.mine = mine
+		for j, x := range group {
+			if x.lossMM <= stepMinLossMM || slipped[x.from] || slipped[x.to] {
+				continue
 			}
+			med := sorted.medianWithout(mine...)
+			own := w.own[:0]
+			for i, o := range group {
+				if i != j {
+					own = append(own, o.mm)
+				}
+			}
+			w.own = own
+			if x.mm <= stepRatio*max(med, stepRateFloorMMPerY) || len(own) > 0 && x.mm <= stepRatio*medianSorting(own) {
+				continue
+			}
+			problems.Warnf(x.to.File, x.to.Line, "CML %s, visit %s: %s %s lost since %s (%s), over %g times the median interval rate of the other CMLs of %q (%s): re-measure, or confirm the reading",
+				m.ID, x.to.Date, s.Units.Format(x.lossMM), s.Units, x.from.Date, rateText(s.Units, x.mm), stepRatio, c.Name, rateText(s.Units, med))
 		}
-		if len(others) < stepMinOthers {
-			continue
-		}
-		med := median(others)
-		if x.mm <= stepRatio*max(med, stepRateFloorMMPerY) || len(own) > 0 && x.mm <= stepRatio*median(own) {
-			continue
-		}
-		problems.Warnf(x.to.File, x.to.Line, "CML %s, visit %s: %s %s lost since %s (%s), over %g times the median interval rate of the other CMLs of %q (%s): re-measure, or confirm the reading",
-			x.m.ID, x.to.Date, s.Units.Format(x.lossMM), s.Units, x.from.Date, rateText(s.Units, x.mm), stepRatio, c.Name, rateText(s.Units, med))
 	}
 	return problems
+}
+
+// stepInterval is the loss between two consecutive visits of a CML.
+type stepInterval struct {
+	from, to   *Visit
+	lossMM, mm float64 // loss, and rate in mm/y
 }
 
 // rateText writes a rate in mm/y, or in mils per year in an inch survey.
@@ -213,15 +246,4 @@ func rateText(u Unit, mmPerY float64) string {
 		return strconv.FormatFloat(mmPerY/MMPerInch*1000, 'f', 1, 64) + " mpy"
 	}
 	return strconv.FormatFloat(mmPerY, 'f', 2, 64) + " mm/y"
-}
-
-// median of a non-empty list; the mean of the middle two for an even count.
-func median(v []float64) float64 {
-	v = slices.Clone(v)
-	slices.Sort(v)
-	n := len(v)
-	if n%2 == 1 {
-		return v[n/2]
-	}
-	return (v[n/2-1] + v[n/2]) / 2
 }

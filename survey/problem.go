@@ -1,8 +1,9 @@
 package survey
 
 import (
+	"cmp"
 	"fmt"
-	"sort"
+	"slices"
 	"strings"
 )
 
@@ -54,12 +55,34 @@ func (l *ProblemList) Warnf(file string, line int, format string, args ...any) {
 
 // Sort orders problems by file, then line, keeping the order of equal places.
 func (l ProblemList) Sort() {
-	sort.SliceStable(l, func(i, j int) bool {
-		if l[i].File != l[j].File {
-			return l[i].File < l[j].File
+	if slices.IsSortedFunc(l, comparePlaces) {
+		return
+	}
+	// pdqsort of positions, the position breaking ties: n log n, where a
+	// stable sort moves the problems n log² n times.
+	order := make([]int, len(l))
+	for i := range order {
+		order[i] = i
+	}
+	slices.SortFunc(order, func(i, j int) int {
+		if c := comparePlaces(l[i], l[j]); c != 0 {
+			return c
 		}
-		return l[i].Line < l[j].Line
+		return cmp.Compare(i, j)
 	})
+	sorted := make(ProblemList, len(l))
+	for k, i := range order {
+		sorted[k] = l[i]
+	}
+	copy(l, sorted)
+}
+
+// comparePlaces orders problems by file, then line.
+func comparePlaces(a, b Problem) int {
+	if c := strings.Compare(a.File, b.File); c != 0 {
+		return c
+	}
+	return cmp.Compare(a.Line, b.Line)
 }
 
 // HasErrors reports whether any problem is an Error.

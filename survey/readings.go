@@ -3,11 +3,7 @@ package survey
 import (
 	"fmt"
 	"slices"
-	"sort"
 	"strings"
-
-	"github.com/yuin/goldmark/ast"
-	east "github.com/yuin/goldmark/extension/ast"
 
 	"github.com/lossline/lossline/survey/number"
 )
@@ -35,49 +31,66 @@ type tableColumn struct {
 	date VisitDate
 }
 
-func (r *checklistReader) table(t *east.Table) {
-	header, ok := t.FirstChild().(*east.TableHeader)
-	if !ok {
-		return
-	}
-	headerLine := r.lineOf(header)
+func (r *checklistReader) table(t *tableBlock) {
+	header := t.rows[0]
+	headerLine := r.lines.line(header.Start)
 	if r.comp == nil {
 		r.problems.Errorf(r.file, headerLine, "a reading table must come under a ## component heading")
 		return
 	}
-	cols := r.columns(header, headerLine)
+	names := gfmCells(nil, r.lineText(header.Start))
+	for len(names) < t.columns {
+		names = append(names, "") // goldmark fills a short header
+	}
+	cols := r.columns(names, headerLine)
 	if cols == nil {
 		return
 	}
-	for row := header.NextSibling(); row != nil; row = row.NextSibling() {
-		line := r.lineOf(row)
-		if n := len(splitRow(r.rowSource(row))); n != len(cols) {
+	r.visitColumns = 0
+	for _, c := range cols {
+		if c.role == colVisit {
+			r.visitColumns++
+		}
+	}
+	var shape, cells []string
+	line := headerLine
+	for _, row := range t.rows[1:] {
+		start := row.Start
+		line = r.lines.advance(line, start)
+		text := r.lineText(start)
+		// goldmark fills short rows and cuts long ones, so their shape is
+		// checked on the text as written.
+		if shape = splitRow(shape[:0], text); len(shape) != len(cols) {
+			n := len(shape)
 			r.problems.Errorf(r.file, line, "row has %d %s, the header has %d: write one cell per column (- for a reading not taken)",
 				n, plural(n, "cell", "cells"), len(cols))
 			continue
 		}
-		r.row(row, line, cols)
+		cells = gfmCells(cells[:0], text)
+		for len(cells) < len(cols) {
+			cells = append(cells, "")
+		}
+		r.row(cells[:len(cols)], line, cols)
 	}
 }
 
-// rowSource returns the source text of a table row: goldmark pads short rows
-// and cuts long ones, so their shape is checked on the text as written.
-func (r *checklistReader) rowSource(row ast.Node) []byte {
-	start := min(max(row.Pos(), 0), len(r.src))
-	end := len(r.src)
-	if i := strings.IndexByte(string(r.src[start:]), '\n'); i >= 0 {
-		end = start + i
+// lineText returns the text of the checklist from offset start to the end
+// of its line.
+func (r *checklistReader) lineText(start int) string {
+	rest := r.text[start:]
+	if i := strings.IndexByte(rest, '\n'); i >= 0 {
+		return rest[:i]
 	}
-	return r.src[start:end]
+	return rest
 }
 
-// splitRow splits a table row into the cells written, as the GFM table
-// extension of goldmark does: one leading and one trailing pipe are dropped,
-// and a pipe after a backslash does not end a cell. Unlike goldmark it keeps an
-// empty last cell written `||` at the end of the row (goldmark drops it, then
-// pads the row with an empty cell: the same value).
-func splitRow(line []byte) []string {
-	s := strings.TrimSpace(string(line))
+// splitRow appends to dst the cells written in a table row, split as the
+// GFM table extension of goldmark does: one leading and one trailing pipe are
+// dropped, and a pipe after a backslash does not end a cell. Unlike goldmark
+// it keeps an empty last cell written `||` at the end of the row (goldmark
+// drops it, then pads the row with an empty cell: the same value).
+func splitRow(dst []string, line string) []string {
+	s := strings.TrimSpace(line)
 	pos, limit := 0, len(s)
 	if limit > 0 && s[0] == '|' {
 		pos++
@@ -85,7 +98,6 @@ func splitRow(line []byte) []string {
 	if limit > pos && s[limit-1] == '|' {
 		limit--
 	}
-	var cells []string
 	for pos < limit {
 		end := pos
 		for ; end < limit; end++ {
@@ -93,13 +105,13 @@ func splitRow(line []byte) []string {
 				break
 			}
 		}
-		cells = append(cells, strings.TrimSpace(s[pos:end]))
+		dst = append(dst, strings.TrimSpace(s[pos:end]))
 		if end == limit-1 {
-			cells = append(cells, "") // `||` closing the row
+			dst = append(dst, "") // `||` closing the row
 		}
 		pos = end + 1
 	}
-	return cells
+	return dst
 }
 
 func plural(n int, one, many string) string {
@@ -109,16 +121,11 @@ func plural(n int, one, many string) string {
 	return many
 }
 
-func (r *checklistReader) cellText(cell ast.Node) string {
-	return strings.TrimSpace(r.inlineSource(cell))
-}
-
-// columns reads the header row; nil when the table cannot be read.
-func (r *checklistReader) columns(header ast.Node, line int) []tableColumn {
+// columns reads the header row's cells; nil when the table cannot be read.
+func (r *checklistReader) columns(names []string, line int) []tableColumn {
 	var cols []tableColumn
 	seen := map[string]bool{}
-	for cell := header.FirstChild(); cell != nil; cell = cell.NextSibling() {
-		name := r.cellText(cell)
+	for _, name := range names {
 		lower := strings.ToLower(name)
 		col := tableColumn{}
 		role, named := columnNames[lower]
@@ -173,17 +180,15 @@ func (r *checklistReader) addVisitDate(d VisitDate) {
 		}
 	}
 	r.comp.VisitDates = append(r.comp.VisitDates, d)
-	sort.Slice(r.comp.VisitDates, func(i, j int) bool { return r.comp.VisitDates[i].Time.Before(r.comp.VisitDates[j].Time) })
+	slices.SortFunc(r.comp.VisitDates, func(a, b VisitDate) int { return a.Time.Compare(b.Time) })
 }
 
 // noAccess are words written in a reading cell for a reading not taken.
 var noAccess = []string{"los", "n/a", "na", "n.a.", "none", "no access", "noaccess", "not accessible", "nr", "not read", "x"}
 
-func (r *checklistReader) row(row ast.Node, line int, cols []tableColumn) {
-	cml := &CML{File: r.file, Line: line}
-	i := 0
-	for cell := row.FirstChild(); cell != nil && i < len(cols); cell, i = cell.NextSibling(), i+1 {
-		v := r.cellText(cell)
+func (r *checklistReader) row(cells []string, line int, cols []tableColumn) {
+	cml := CML{File: r.file, Line: line}
+	for i, v := range cells {
 		switch cols[i].role {
 		case colCML:
 			cml.ID = v
@@ -209,16 +214,21 @@ func (r *checklistReader) row(row ast.Node, line int, cols []tableColumn) {
 			if v == "" || v == "-" || v == "—" || v == "–" {
 				break
 			}
-			if slices.Contains(noAccess, strings.ToLower(strings.Join(strings.Fields(v), " "))) {
+			// Every word for a reading not taken starts with a letter.
+			if (v[0] < '0' || v[0] > '9') && slices.Contains(noAccess, strings.ToLower(strings.Join(strings.Fields(v), " "))) {
 				r.problems.Errorf(r.file, line, "reading %q on %s: write - for a reading not taken and say why in a note", v, cols[i].date)
 				break
 			}
-			vals, err := ParseThicknesses(v, r.survey.Units)
+			var err error
+			r.readings, err = appendThicknesses(r.readings[:0], v, r.survey.Units)
 			if err != nil {
 				r.problems.Errorf(r.file, line, "reading %v", err)
 				break
 			}
-			cml.Visits = append(cml.Visits, Visit{Date: cols[i].date, ReadingsMM: vals, File: r.file, Line: line})
+			if cml.Visits == nil {
+				cml.Visits = r.blocks.visits(r.visitColumns)
+			}
+			cml.Visits = append(cml.Visits, Visit{Date: cols[i].date, ReadingsMM: r.blocks.readings(r.readings), File: r.file, Line: line})
 		}
 	}
 	if cml.ID == "" {
@@ -230,8 +240,54 @@ func (r *checklistReader) row(row ast.Node, line int, cols []tableColumn) {
 		return
 	}
 	r.cmlLines[cml.ID] = line
-	sort.SliceStable(cml.Visits, func(a, b int) bool { return cml.Visits[a].Date.Time.Before(cml.Visits[b].Date.Time) })
-	r.comp.CMLs = append(r.comp.CMLs, cml)
+	if !slices.IsSortedFunc(cml.Visits, compareVisitDates) {
+		slices.SortStableFunc(cml.Visits, compareVisitDates)
+	}
+	r.comp.CMLs = append(r.comp.CMLs, r.blocks.cml(cml))
+}
+
+func compareVisitDates(a, b Visit) int { return a.Date.Time.Compare(b.Date.Time) }
+
+// rowBlocks hands out the CMLs, visits and readings of table rows from
+// blocks shared by many rows: a few allocations per hundreds of rows instead
+// of several per row. Each slice handed out has its length as capacity, so
+// appending to it (a merge adds visits) moves it out of the block.
+type rowBlocks struct {
+	cmlBlock   []CML
+	visitBlock []Visit
+	mmBlock    []float64
+}
+
+// rowBlock is the number of rows' worth of room a block is made with.
+const rowBlock = 256
+
+// cml stores m in a block and returns its place.
+func (b *rowBlocks) cml(m CML) *CML {
+	if len(b.cmlBlock) == cap(b.cmlBlock) {
+		b.cmlBlock = make([]CML, 0, rowBlock)
+	}
+	b.cmlBlock = append(b.cmlBlock, m)
+	return &b.cmlBlock[len(b.cmlBlock)-1]
+}
+
+// visits returns an empty slice with room for n visits.
+func (b *rowBlocks) visits(n int) []Visit {
+	if cap(b.visitBlock)-len(b.visitBlock) < n {
+		b.visitBlock = make([]Visit, 0, max(n, 4)*rowBlock)
+	}
+	start := len(b.visitBlock)
+	b.visitBlock = b.visitBlock[:start+n]
+	return b.visitBlock[start : start : start+n]
+}
+
+// readings returns a copy of mm stored in a block.
+func (b *rowBlocks) readings(mm []float64) []float64 {
+	if cap(b.mmBlock)-len(b.mmBlock) < len(mm) {
+		b.mmBlock = make([]float64, 0, max(len(mm), 4)*rowBlock)
+	}
+	start := len(b.mmBlock)
+	b.mmBlock = append(b.mmBlock, mm...)
+	return b.mmBlock[start:len(b.mmBlock):len(b.mmBlock)]
 }
 
 // parseLatLon reads `latitude, longitude` in decimal degrees; its error
@@ -264,7 +320,7 @@ func parseLatLon(s string) (LatLon, error) {
 
 // finish checks what can only be checked once the whole checklist is read.
 func (r *checklistReader) finish() {
-	if len(r.survey.Assets) == 0 || len(r.survey.AllCMLs()) == 0 {
+	if len(r.survey.Assets) == 0 || r.survey.CMLCount() == 0 {
 		r.problems.Errorf(r.file, 0, "the checklist has no CMLs: add a ## component heading and a reading table under it")
 	}
 	for _, a := range r.survey.Assets {

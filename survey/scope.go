@@ -46,9 +46,12 @@ func (r *checklistReader) scopeKey(m map[string]any) {
 // entryLine finds the line of a list entry under the front matter key at
 // line key, or returns key.
 func (r *checklistReader) entryLine(key int, entry string) int {
-	lines := strings.Split(string(r.src), "\n")
-	for i := key; i < len(lines); i++ { // lines[key] is the line after the key
-		l := strings.TrimSpace(lines[i])
+	i := 0
+	for l := range strings.Lines(r.text) {
+		if i++; i <= key { // line i is the key's or one before it
+			continue
+		}
+		l = strings.TrimSpace(l)
 		if l == "---" {
 			break
 		}
@@ -57,7 +60,7 @@ func (r *checklistReader) entryLine(key int, entry string) int {
 		}
 		l = strings.Trim(strings.TrimSpace(strings.TrimPrefix(l, "-")), `"'`)
 		if l == strings.TrimSpace(entry) {
-			return i + 1
+			return i
 		}
 	}
 	return key
@@ -71,18 +74,25 @@ func scopeName(s string) string {
 	return aroundSlash.ReplaceAllString(strings.ToLower(strings.Join(strings.Fields(s), " ")), "/")
 }
 
-// covers reports whether the visit's scope covers a component of an asset.
-func (s *Survey) covers(asset, component string) bool {
+// visitScope is the front matter's scope as names compared by scopeName;
+// nil when the visit covers everything its tables list.
+type visitScope map[string]bool
+
+// scope returns the visit's scope, made once per pass over the survey.
+func (s *Survey) scope() visitScope {
 	if len(s.VisitScope) == 0 {
-		return true
+		return nil
 	}
-	a, c := scopeName(asset), scopeName(asset+" / "+component)
+	v := make(visitScope, len(s.VisitScope))
 	for _, e := range s.VisitScope {
-		if k := scopeName(e.Text); k == a || k == c {
-			return true
-		}
+		v[scopeName(e.Text)] = true
 	}
-	return false
+	return v
+}
+
+// covers reports whether the visit's scope covers a component of an asset.
+func (v visitScope) covers(asset, component string) bool {
+	return v == nil || v[scopeName(asset)] || v[scopeName(asset+" / "+component)]
 }
 
 // applyScope checks that every scope entry names an asset or component of
@@ -109,9 +119,10 @@ func applyScope(s *Survey) ProblemList {
 				e.Text, didYouMean(quoted(closeNames(e.Text, names, 3))))
 		}
 	}
+	scope := s.scope()
 	for _, a := range s.Assets {
 		for _, c := range a.Components {
-			c.OutOfScope = !s.covers(a.Name, c.Name)
+			c.OutOfScope = !scope.covers(a.Name, c.Name)
 			if !c.OutOfScope {
 				continue
 			}
@@ -137,37 +148,69 @@ func quoted(names []string) []string {
 	return out
 }
 
-// carryIn adds to s a CML of an earlier survey that s does not list because
-// its scope leaves the CML's asset or component out of this visit: under the
-// asset and component of the same names, made (out of scope, with the earlier
-// survey's design data) when s has none. The CML comes without readings;
-// Merge adds them.
-func carryIn(s *Survey, old Located) Located {
-	var a *Asset
-	for _, x := range s.Assets {
-		if scopeName(x.Name) == scopeName(old.Asset.Name) {
-			a = x
-			break
+// carrier carries CMLs of earlier surveys into s that s does not list
+// because its scope leaves their asset or component out of this visit. It
+// finds assets and components by name through indexes made once, so that
+// carrying n CMLs costs n, not n times the components.
+type carrier struct {
+	s      *Survey
+	assets map[string]*Asset                // by scopeName; the first of a name
+	comps  map[*Asset]map[string]*Component // likewise, per asset
+	placed map[*Component]Located           // an earlier component -> where its CMLs go
+}
+
+func newCarrier(s *Survey) *carrier {
+	c := &carrier{s: s, assets: map[string]*Asset{}, comps: map[*Asset]map[string]*Component{}, placed: map[*Component]Located{}}
+	for _, a := range s.Assets {
+		if k := scopeName(a.Name); c.assets[k] == nil {
+			c.assets[k] = a
 		}
 	}
+	return c
+}
+
+// carryIn adds a CML of an earlier survey to s, under the asset and
+// component of the same names, made (out of scope, with the earlier survey's
+// design data) when s has none. The CML comes without readings; Merge adds
+// them.
+func (cr *carrier) carryIn(old Located) Located {
+	at, ok := cr.placed[old.Component]
+	if !ok {
+		at = cr.place(old)
+		cr.placed[old.Component] = at
+	}
+	at.CML = &CML{ID: old.CML.ID, File: old.CML.File, Line: old.CML.Line, Location: old.CML.Location, GPS: old.CML.GPS}
+	at.Component.CMLs = append(at.Component.CMLs, at.CML)
+	return at
+}
+
+// place finds or makes the asset and component of s an earlier CML goes under.
+func (cr *carrier) place(old Located) Located {
+	ak := scopeName(old.Asset.Name)
+	a := cr.assets[ak]
 	if a == nil {
 		a = &Asset{Name: old.Asset.Name, Line: old.Asset.Line}
-		s.Assets = append(s.Assets, a)
+		cr.s.Assets = append(cr.s.Assets, a)
+		cr.assets[ak] = a
 	}
-	var c *Component
-	for _, x := range a.Components {
-		if scopeName(x.Name) == scopeName(old.Component.Name) {
-			c = x
-			break
+	comps := cr.comps[a]
+	if comps == nil {
+		comps = map[string]*Component{}
+		for _, x := range a.Components {
+			if k := scopeName(x.Name); comps[k] == nil {
+				comps[k] = x
+			}
 		}
+		cr.comps[a] = comps
 	}
+	ck := scopeName(old.Component.Name)
+	c := comps[ck]
 	if c == nil {
 		d := old.Component.Design
 		d.Lines = maps.Clone(d.Lines)
 		c = &Component{Name: old.Component.Name, File: old.Component.File, Line: old.Component.Line, Asset: a.Name, Design: d, OutOfScope: true}
 		a.Components = append(a.Components, c)
+		comps[ck] = c
 	}
-	m := &CML{ID: old.CML.ID, File: old.CML.File, Line: old.CML.Line, Location: old.CML.Location, GPS: old.CML.GPS}
-	c.CMLs = append(c.CMLs, m)
-	return Located{Asset: a, Component: c, CML: m}
+	return Located{Asset: a, Component: c}
 }

@@ -48,8 +48,12 @@ func sameSite(from, e *Survey, line int) ProblemList {
 	if !namedAssets(from) || !namedAssets(e) {
 		return nil
 	}
+	names := make(map[string]bool, len(e.Assets))
+	for _, b := range e.Assets {
+		names[siteName(b.Name)] = true
+	}
 	for _, a := range from.Assets {
-		if slices.ContainsFunc(e.Assets, func(b *Asset) bool { return siteName(a.Name) == siteName(b.Name) }) {
+		if names[siteName(a.Name)] {
 			return nil
 		}
 	}

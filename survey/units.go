@@ -70,8 +70,21 @@ const MaxThicknessMM = 1000
 // Bare numbers are in def. Results are in millimetres, each greater than zero
 // and at most MaxThicknessMM.
 func ParseThicknesses(s string, def Unit) ([]float64, error) {
-	fields := strings.Fields(s)
-	var out []float64
+	out, err := appendThicknesses(nil, s, def)
+	if err != nil {
+		return nil, err
+	}
+	return out, nil
+}
+
+// appendThicknesses is ParseThicknesses appending the values to dst.
+func appendThicknesses(dst []float64, s string, def Unit) ([]float64, error) {
+	var buf [8]string
+	fields := buf[:0]
+	for f := range strings.FieldsSeq(s) {
+		fields = append(fields, f)
+	}
+	out := dst
 	for i := 0; i < len(fields); i++ {
 		f := fields[i]
 		if whole, frac, ok := strings.Cut(f, ","); ok && (frac == "" || strings.ContainsAny(frac, ".,")) {

@@ -7,7 +7,6 @@ import (
 	"fmt"
 	"io"
 	"os"
-	"runtime/debug"
 
 	"github.com/lossline/lossline/survey"
 )
@@ -24,18 +23,9 @@ const (
 )
 
 func main() {
-	// Decoding 12-megapixel photos makes tens of megabytes of garbage per
-	// photo; a soft memory limit makes the collector return it promptly, so
-	// peak memory stays flat however many photos a survey has. GOMEMLIMIT
-	// set by the user wins.
-	if os.Getenv("GOMEMLIMIT") == "" {
-		debug.SetMemoryLimit(memoryLimit)
-	}
+	setSoftLimit()
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
-
-// memoryLimit is the soft limit of the Go heap (runtime/debug.SetMemoryLimit).
-const memoryLimit = 140 << 20
 
 // run executes the command line and returns its exit code.
 func run(args []string, stdout, stderr io.Writer) int {

@@ -188,7 +188,7 @@ func TestCompareUrgency(t *testing.T) {
 		if class == FiniteLife || class == AtOrBelowRequired {
 			r.RemainingLifeY = ptr(life)
 		}
-		return Ranked{Result: r, Consequence: cons, ID: id}
+		return RankedOf(&r, cons, id)
 	}
 	items := []Ranked{
 		mk("E", LifeUnknown, 0, 4),
