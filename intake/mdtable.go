@@ -214,6 +214,13 @@ func (t *mdTable) render() []string {
 			w[i] = max(w[i], utf8.RuneCountInString(r[i]))
 		}
 	}
+	if !t.trail {
+		// An empty last cell needs the closing pipe: without it the row would
+		// read as a cell short.
+		for _, r := range t.rows {
+			t.trail = t.trail || r[len(r)-1] == ""
+		}
+	}
 	out := []string{t.line(t.header, w)}
 	seps := make([]string, len(t.seps))
 	for i, s := range t.seps {

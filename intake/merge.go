@@ -80,7 +80,11 @@ func Plan(s *survey.Survey, files []*File, opt MergeOptions) (*Change, ProblemLi
 		problems.Errorf(Place{File: s.File}, "%s", why)
 		return nil, problems
 	}
-	m := &merger{s: s, lines: strings.SplitAfter(text, "\n"), tables: map[int]*mdTable{}, rowLines: map[int]bool{},
+	lines := strings.SplitAfter(text, "\n")
+	if lines[len(lines)-1] == "" {
+		lines = lines[:len(lines)-1] // the text ends with a line ending, not an empty line
+	}
+	m := &merger{s: s, lines: lines, tables: map[int]*mdTable{}, rowLines: map[int]bool{},
 		change: &Change{File: s.File, Old: s.Source}}
 	for _, loc := range own {
 		m.rowLines[loc.CML.Line-1] = true
@@ -371,12 +375,14 @@ func findComponent(s *survey.Survey, name string) (*survey.Component, string) {
 	norm := func(x string) string { return strings.ToLower(strings.Join(strings.Fields(x), " ")) }
 	want := norm(name)
 	var found []*survey.Component
-	var all []string
+	var names []string
+	full := map[string]string{} // a component's name or full name → its full name
 	for _, a := range s.Assets {
 		for _, c := range a.Components {
-			full := a.Name + " / " + c.Name
-			all = append(all, full)
-			if norm(full) == want || norm(c.Name) == want {
+			f := a.Name + " / " + c.Name
+			names = append(names, f, c.Name)
+			full[f], full[c.Name] = f, f
+			if norm(f) == want || norm(c.Name) == want {
 				found = append(found, c)
 			}
 		}
@@ -385,7 +391,13 @@ func findComponent(s *survey.Survey, name string) (*survey.Component, string) {
 	case 1:
 		return found[0], ""
 	case 0:
-		return nil, fmt.Sprintf("no component %q in this survey%s", name, didYouMean(survey.CloseNames(name, all, 3)))
+		var near []string
+		for _, n := range survey.CloseNames(name, names, 3) {
+			if !slices.Contains(near, full[n]) {
+				near = append(near, full[n])
+			}
+		}
+		return nil, fmt.Sprintf("no component %q in this survey%s", name, didYouMean(near))
 	}
 	return nil, fmt.Sprintf("%q names %d components: write it as \"Asset / Component\"", name, len(found))
 }
