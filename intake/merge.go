@@ -35,7 +35,8 @@ type group struct {
 	values []Value
 	notes  []string
 	loc    string
-	place  Place
+	place  Place // of the first reading
+	idAt   Place // of the first reading's CML id
 	file   string
 }
 
@@ -69,7 +70,7 @@ func Plan(s *survey.Survey, files []*File, opt MergeOptions) (*Change, ProblemLi
 			problems.Errorf(g.place, "CML %s: date %s is after this survey's last day %s: readings of a later visit go into that visit's survey folder",
 				g.id, g.date, s.LastDay().Format("2006-01-02"))
 		case !known && opt.NewComponent == "":
-			problems.Errorf(g.place, "CML %s is not in %s%s: add its row to a reading table, or import with --new COMPONENT to add it there",
+			problems.Errorf(g.idAt, "CML %s is not in %s%s: add its row to a reading table, or import with --new COMPONENT to add it there",
 				g.id, s.File, didYouMean(survey.CloseNames(g.id, ids, 3)))
 		case known || target != nil:
 			mergeable = append(mergeable, g)
@@ -133,7 +134,7 @@ func groupReadings(files []*File, problems *ProblemList) []*group {
 			key := f.Name + "\x00" + r.CML + "\x00" + r.Date.String()
 			g, ok := inFile[key]
 			if !ok {
-				g = &group{id: r.CML, date: r.Date, place: r.Place, file: f.Name}
+				g = &group{id: r.CML, date: r.Date, place: r.Place, idAt: r.IDPlace, file: f.Name}
 				inFile[key] = g
 				perFile = append(perFile, g)
 			}

@@ -167,6 +167,9 @@ func TestShapesFromWorkbook(t *testing.T) {
 			style, _ := f.NewStyle(&excelize.Style{CustomNumFmt: ptr("yyyy-mm-dd")})
 			_ = f.SetCellStyle(sh, "B1", "B1", style)
 		}, "S-01 2021-05-18 12.31 @r.xlsx:Sheet1!B2\nS-01 2026-05-20 12.05 11.98 @r.xlsx:Sheet1!C2\nS-02 2026-05-20 12.4 @r.xlsx:Sheet1!C3\n"},
+		{"numbers as a formula leaves them, text that reads as a number", func(f *excelize.File, sh string) {
+			setCells(t, f, sh, map[string]any{"A1": "CML", "B1": "2026-05-20", "C1": "2021-05-18", "A2": "007", "B2": 9.6 - 0.23, "C2": 0.1 + 0.2})
+		}, "007 2026-05-20 9.37 @r.xlsx:Sheet1!B2\n007 2021-05-18 0.3 @r.xlsx:Sheet1!C2\n"},
 		{"grid", func(f *excelize.File, sh string) {
 			setCells(t, f, sh, map[string]any{"A1": "Field sheet", "A3": "CML", "B3": "date", "C3": "A1", "D3": "A2",
 				"A4": "P-1", "B4": "2026-05-20", "C4": 9.1, "D4": 8.95})

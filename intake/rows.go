@@ -17,7 +17,8 @@ type Reading struct {
 	Values   []Value
 	Note     string // the note column, as written
 	Location string // the location column, as written (used for CMLs added with --new)
-	Place    Place  // the row, or the cell of a wide file's date column
+	Place    Place  // the row of a text file, the cell of a worksheet
+	IDPlace  Place  // the cell of the CML id
 }
 
 // readingCell is a cell that holds readings and the date they were taken.
@@ -103,7 +104,7 @@ func (s *sheet) readings(lay *layout, opt Options) ([]Reading, []string, Problem
 			if lay.shape == Wide || s.name != "" {
 				place = rc.c.place
 			}
-			out = append(out, Reading{CML: id.text, Date: d, Values: vals, Note: note, Location: loc, Place: place})
+			out = append(out, Reading{CML: id.text, Date: d, Values: vals, Note: note, Location: loc, Place: place, IDPlace: id.place})
 		}
 	}
 	return out, notRead, problems

@@ -121,46 +121,64 @@ func (b *workbook) sheet(file, name string, cells *int) (*sheet, ProblemList) {
 }
 
 // cell makes the cell at row r, column c (1-based) from its shown and raw
-// values. A number keeps the digits shown when they are its exact value
-// (12.50), else it is written from the value (a cell showing 12.5 for
-// 12.456); a number formatted as a date becomes the date.
+// values. A number keeps the digits shown when they are its value (12.50);
+// otherwise it is written from the value to 12 significant digits (12.456
+// for a cell showing 12.5; 9.28 for 9.279999999999994 left by a formula's
+// binary arithmetic: no gauge resolves a wall to a billionth). A number
+// formatted as a date becomes the date.
 func (b *workbook) cell(sheet string, r, c int, shown, raw string) cell {
 	out := cell{text: strings.TrimSpace(shown)}
-	if raw == shown {
-		if _, err := strconv.ParseFloat(strings.TrimSpace(raw), 64); err == nil {
-			ref, _ := excelize.CoordinatesToCellName(c, r)
-			t, _ := b.f.GetCellType(sheet, ref)
-			out.number = t == excelize.CellTypeUnset || t == excelize.CellTypeNumber // no type: a number
-		}
-		if raw == "" {
-			// A formula showing nothing: its result was never stored (a
-			// program wrote the file without computing it), or it is empty
-			// text; the two cannot be told apart, so either is refused
-			// rather than read as a reading not taken.
-			ref, _ := excelize.CoordinatesToCellName(c, r)
-			out.formula, _ = b.f.GetCellFormula(sheet, ref)
-		}
-		return out
-	}
-	v, err := strconv.ParseFloat(strings.TrimSpace(raw), 64)
-	if err != nil {
-		return out
-	}
 	ref, _ := excelize.CoordinatesToCellName(c, r)
-	if b.isDateStyle(sheet, ref) {
+	v, err := strconv.ParseFloat(strings.TrimSpace(raw), 64)
+	switch {
+	case raw == "" && shown == "":
+		// A formula showing nothing: its result was never stored (a
+		// program wrote the file without computing it), or it is empty
+		// text; the two cannot be told apart, so either is refused
+		// rather than read as a reading not taken.
+		out.formula, _ = b.f.GetCellFormula(sheet, ref)
+		return out
+	case err != nil:
+		return out
+	case raw != shown && b.isDateStyle(sheet, ref):
 		if t, err := excelize.ExcelDateToTime(v, b.date1904); err == nil {
 			out.text, out.date = t.Format(time.DateOnly), true
 			return out
 		}
+	case raw == shown:
+		// Text that reads as a number stays text ("007"); a number cell has
+		// no type or the number type.
+		if t, _ := b.f.GetCellType(sheet, ref); t != excelize.CellTypeUnset && t != excelize.CellTypeNumber {
+			return out
+		}
 	}
 	out.number = true
-	if s, err := strconv.ParseFloat(out.text, 64); err != nil || s != v {
-		out.text = strconv.FormatFloat(v, 'g', 12, 64)
+	if s, err := strconv.ParseFloat(out.text, 64); err != nil || s != v || significantDigits(out.text) > numberDigits {
+		out.text = strconv.FormatFloat(v, 'g', numberDigits, 64)
 		if strings.ContainsAny(out.text, "eE") {
 			out.text = strconv.FormatFloat(v, 'f', -1, 64)
 		}
 	}
 	return out
+}
+
+// numberDigits is how many significant digits a worksheet number is read to.
+const numberDigits = 12
+
+// significantDigits counts the digits of a decimal number from its first
+// non-zero one.
+func significantDigits(s string) int {
+	n, started := 0, false
+	for _, r := range s {
+		switch {
+		case r == 'e' || r == 'E':
+			return n
+		case r >= '1' && r <= '9', r == '0' && started:
+			started = true
+			n++
+		}
+	}
+	return n
 }
 
 // isDateStyle reports whether the cell's number format shows a date.
