@@ -446,3 +446,25 @@ func TestSheetCommand(t *testing.T) {
 		}
 	}
 }
+
+// The import: block of README.md is a valid settings block.
+func TestReadmeImportBlock(t *testing.T) {
+	readme, err := os.ReadFile(filepath.Join("..", "..", "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, rest, ok := strings.Cut(string(readme), "```yaml\nimport:")
+	block, _, _ := strings.Cut(rest, "```")
+	if !ok {
+		t.Fatal("README has no import: block")
+	}
+	file := filepath.Join(t.TempDir(), SettingsFile)
+	_ = os.WriteFile(file, []byte("import:"+block), 0o644)
+	read, problems := readSettingsFile(file)
+	if len(problems) > 0 {
+		t.Fatal(problems)
+	}
+	if cols := read.Values["import"].(map[string]any); len(cols) != 7 || cols["points"] != "N, E, S, W" {
+		t.Errorf("README import block: %v", cols)
+	}
+}
