@@ -296,3 +296,32 @@ func TestPlaceString(t *testing.T) {
 		}
 	}
 }
+
+// A file past the row limit is refused at the first row beyond it, read
+// no further.
+func TestRowLimit(t *testing.T) {
+	text := "CML\n" + strings.Repeat("A\n", MaxRows)
+	if _, problems := Read("r.csv", []byte(text), Options{Units: survey.MM}); problems.Err() == nil ||
+		!strings.HasPrefix(problems.Err().Error(), "r.csv:100001: more than 100000 records") {
+		t.Errorf("CSV: %v", problems.Err())
+	}
+	data := makeWorkbook(t, func(f *excelize.File, sh string) {
+		w, err := f.NewStreamWriter(sh)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for r := 1; r <= MaxRows+1; r++ {
+			ref, _ := excelize.CoordinatesToCellName(1, r)
+			if err := w.SetRow(ref, []any{"A"}); err != nil {
+				t.Fatal(err)
+			}
+		}
+		if err := w.Flush(); err != nil {
+			t.Fatal(err)
+		}
+	})
+	if _, problems := Read("r.xlsx", data, Options{Units: survey.MM}); problems.Err() == nil ||
+		!strings.HasPrefix(problems.Err().Error(), "r.xlsx:Sheet1!100001:100001: more than 100000 rows") {
+		t.Errorf("workbook: %v", problems.Err())
+	}
+}

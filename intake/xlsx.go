@@ -30,7 +30,7 @@ func readWorkbook(name string, data []byte, only string) ([]*sheet, ProblemList)
 		problems.Errorf(whole, "an Excel 97-2003 workbook (.xls) or one protected by a password: save it as .xlsx (Excel Workbook) without a password")
 		return nil, problems
 	}
-	f, err := excelize.OpenReader(bytes.NewReader(data), excelize.Options{UnzipSizeLimit: maxUnzipBytes, UnzipXMLSizeLimit: maxUnzipBytes})
+	f, err := excelize.OpenReader(bytes.NewReader(data), excelize.Options{UnzipSizeLimit: maxUnzipBytes})
 	if err != nil {
 		problems.Errorf(whole, "not an .xlsx workbook that can be read (%s)", workbookFailure(err))
 		return nil, problems
@@ -76,30 +76,18 @@ type workbook struct {
 func (b *workbook) sheet(file, name string, cells *int) (*sheet, ProblemList) {
 	var problems ProblemList
 	s := &sheet{file: file, name: name, commaDecimals: true}
-	shown, err := b.f.GetRows(name)
-	if err != nil {
-		problems.Errorf(s.rowPlace(0), "cannot be read (%s)", workbookFailure(err))
-		return nil, problems
+	start := *cells
+	shown, ps := b.rows(s, excelize.Options{}, cells)
+	if len(ps) > 0 {
+		return nil, ps
 	}
-	raw, err := b.f.GetRows(name, excelize.Options{RawCellValue: true})
-	if err != nil {
-		problems.Errorf(s.rowPlace(0), "cannot be read (%s)", workbookFailure(err))
-		return nil, problems
-	}
-	if len(shown) > MaxRows {
-		problems.Errorf(s.rowPlace(MaxRows+1), "more than %d rows: lossline imports at most %d", MaxRows, MaxRows)
-		return nil, problems
+	*cells = start // the raw values are the same cells again
+	raw, ps := b.rows(s, excelize.Options{RawCellValue: true}, cells)
+	if len(ps) > 0 {
+		return nil, ps
 	}
 	grid := make([][]cell, len(shown))
 	for r, vals := range shown {
-		if len(vals) > maxColumns {
-			problems.Errorf(s.rowPlace(r+1), "%d cells in a row, more than the %d lossline reads", len(vals), maxColumns)
-			return nil, problems
-		}
-		if *cells += len(vals); *cells > MaxCells {
-			problems.Errorf(s.rowPlace(r+1), "more than %d cells in all: lossline imports at most %d", MaxCells, MaxCells)
-			return nil, problems
-		}
 		grid[r] = make([]cell, len(vals))
 		for c, v := range vals {
 			rv := v
@@ -118,6 +106,52 @@ func (b *workbook) sheet(file, name string, cells *int) (*sheet, ProblemList) {
 		s.rows = append(s.rows, row{n: r + 1, cells: cs})
 	}
 	return s, nil
+}
+
+// rows reads a worksheet's rows as GetRows does (empty rows in between kept,
+// none after the last), streaming, so that it stops at the first row past
+// MaxRows, maxColumns or MaxCells in all instead of holding them.
+func (b *workbook) rows(s *sheet, opt excelize.Options, cells *int) ([][]string, ProblemList) {
+	var problems ProblemList
+	it, err := b.f.Rows(s.name)
+	if err != nil {
+		problems.Errorf(s.rowPlace(0), "cannot be read (%s)", workbookFailure(err))
+		return nil, problems
+	}
+	defer it.Close()
+	var out [][]string
+	n := 0
+	for it.Next() {
+		n++
+		if n > MaxRows {
+			problems.Errorf(s.rowPlace(n), "more than %d rows: lossline imports at most %d", MaxRows, MaxRows)
+			return nil, problems
+		}
+		vals, err := it.Columns(opt)
+		if err != nil {
+			problems.Errorf(s.rowPlace(n), "cannot be read (%s)", workbookFailure(err))
+			return nil, problems
+		}
+		if len(vals) > maxColumns {
+			problems.Errorf(s.rowPlace(n), "%d cells in a row, more than the %d lossline reads", len(vals), maxColumns)
+			return nil, problems
+		}
+		if *cells += len(vals); *cells > MaxCells {
+			problems.Errorf(s.rowPlace(n), "more than %d cells in all: lossline imports at most %d", MaxCells, MaxCells)
+			return nil, problems
+		}
+		if len(vals) > 0 {
+			for len(out) < n-1 {
+				out = append(out, nil)
+			}
+			out = append(out, vals)
+		}
+	}
+	if err := it.Error(); err != nil {
+		problems.Errorf(s.rowPlace(0), "cannot be read (%s)", workbookFailure(err))
+		return nil, problems
+	}
+	return out, nil
 }
 
 // cell makes the cell at row r, column c (1-based) from its shown and raw

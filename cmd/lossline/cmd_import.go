@@ -149,13 +149,13 @@ func describeImport(w io.Writer, files []*intake.File, ch *intake.Change) {
 			values += len(r.Values)
 			cmls[r.CML] = true
 		}
-		fmt.Fprintf(w, "%s: %d readings of %d CMLs", f.Name, values, len(cmls))
+		fmt.Fprintf(w, "%s: %d %s of %d %s", f.Name, values, plural(values, "reading", "readings"), len(cmls), plural(len(cmls), "CML", "CMLs"))
 		if len(f.NotRead) > 0 {
 			fmt.Fprintf(w, "; rows without a reading: %s", strings.Join(f.NotRead, ", "))
 		}
 		fmt.Fprintln(w)
 	}
-	fmt.Fprintf(w, "%s: %d CML visits written, %d already there", ch.File, ch.Filled, ch.Same)
+	fmt.Fprintf(w, "%s: %d CML %s written, %d already there", ch.File, ch.Filled, plural(ch.Filled, "visit", "visits"), ch.Same)
 	if len(ch.Columns) > 0 {
 		fmt.Fprintf(w, "; visit columns added: %s", strings.Join(ch.Columns, ", "))
 	}
@@ -166,4 +166,12 @@ func describeImport(w io.Writer, files []*intake.File, ch *intake.Change) {
 		fmt.Fprintf(w, "; %d remarks written", ch.Notes)
 	}
 	fmt.Fprintln(w)
+}
+
+// plural is one or many by n.
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
 }
