@@ -212,24 +212,22 @@ func (m *merger) merge(g *group, cml *survey.CML, problems *ProblemList) {
 		m.note(t, r, g)
 		return
 	}
-	if c < 0 {
-		for _, v := range cml.Visits {
-			if v.File == m.s.File || !v.Date.Time.Equal(g.date.Time) {
-				continue
-			}
-			if !sameMM(v.ReadingsMM, mmOf(g.values)) {
-				problems.Errorf(Place{File: v.File, Row: v.Line}, "CML %s, visit %s: readings %s differ from %s at %s", cml.ID, g.date,
-					formatMM(v.ReadingsMM), formatMM(mmOf(g.values)), g.place)
-				return
-			}
-			m.change.Same++ // held by an earlier survey's checklist
+	// The visit may be held by an earlier survey's checklist (merged in).
+	for _, v := range cml.Visits {
+		if v.File == m.s.File || !v.Date.Time.Equal(g.date.Time) {
+			continue
+		}
+		if !sameMM(v.ReadingsMM, mmOf(g.values)) {
+			problems.Errorf(Place{File: v.File, Row: v.Line}, "CML %s, visit %s: readings %s differ from %s at %s", cml.ID, g.date,
+				formatMM(v.ReadingsMM), formatMM(mmOf(g.values)), g.place)
 			return
 		}
-		c = t.dateColumn(g.date)
-		if c < 0 {
-			c = t.addDateColumn(g.date)
-			m.addedColumn(g.date, cml)
-		}
+		m.change.Same++
+		return
+	}
+	if c < 0 {
+		c = t.addDateColumn(g.date)
+		m.addedColumn(g.date, cml)
 	}
 	t.set(r, c, joinValues(g.values))
 	m.change.Filled++

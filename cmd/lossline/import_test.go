@@ -468,3 +468,22 @@ func TestReadmeImportBlock(t *testing.T) {
 		t.Errorf("README import block: %v", cols)
 	}
 }
+
+// Readings of a visit an earlier survey folder holds (A-01 was A-1 in the
+// 2022 survey) are checked against it: the same are left, others refused at
+// that folder's line.
+func TestImportAgainstEarlierFolder(t *testing.T) {
+	dir := copyDemo(t)
+	file := filepath.Join(filepath.Dir(dir), "old.csv")
+	_ = os.WriteFile(file, []byte("CML,2022-05-10,2017-05-02\nA-01,6.62,7.40\nA-02,7.84,7.95\n"), 0o644)
+	code, out, errOut := runCLI(t, "import", dir, file)
+	if code != exitOK || !strings.Contains(out, "0 CML visits written, 4 already there") || !strings.Contains(out, "already holds every reading") {
+		t.Errorf("the same readings: exit %d\n%s%s", code, out, errOut)
+	}
+	_ = os.WriteFile(file, []byte("CML,2022-05-10\nA-01,6.26\n"), 0o644)
+	code, _, errOut = runCLI(t, "import", dir, file)
+	earlier := filepath.Join(filepath.Dir(dir), "demo-2022", "survey.md")
+	if code != exitBadInput || !strings.Contains(errOut, earlier+":23: CML A-01, visit 2022-05-10: readings 6.62 mm differ from 6.26 mm at "+file+":2") {
+		t.Errorf("different readings: exit %d\n%s", code, errOut)
+	}
+}
