@@ -44,6 +44,10 @@ func closeNames(want string, have []string, n int) []string {
 	return out
 }
 
+// CloseNames returns up to n names of have that want was probably meant to
+// be, nearest first, by the rule of closeNames.
+func CloseNames(want string, have []string, n int) []string { return closeNames(want, have, n) }
+
 // didYouMean is " (did you mean a, b?)" for the names given, or "".
 func didYouMean(names []string) string {
 	if len(names) == 0 {

@@ -42,6 +42,11 @@ var looksLikeDate = regexp.MustCompile(`^\d+([-/.]\d+)+$|^(19|20)\d\d$`)
 // dateInside finds a date among other words of a header.
 var dateInside = regexp.MustCompile(`\b\d{4}[-/.]\d{1,2}([-/.]\d{1,2})?\b|\b\d{1,2}[-/.]\d{1,2}[-/.]\d{4}\b`)
 
+// VisitDateMistake says why s, which looks like an attempt at a date, is not
+// a valid one, in the words check uses; "" when s is a valid date or does not
+// look like one.
+func VisitDateMistake(s string) string { return visitDateMistake(s) }
+
 // visitDateMistake says why s, which looks like an attempt at a date, is not
 // a valid one; "" when s is a valid date or does not look like one.
 func visitDateMistake(s string) string {

@@ -19,7 +19,7 @@ import (
 type settingKey struct {
 	Name    string
 	Kind    kind
-	Default any    // float64, survey.Money, int, bool or string by Kind; nil for kindPrices
+	Default any    // float64, survey.Money, int, bool or string by Kind; nil for kindPrices and kindColMap
 	Help    string // flag help with the unit; a `word` names the flag's argument
 	// Check refuses a value of the right kind outside the setting's range or
 	// list, with a message that follows the setting's name; nil: any value.
@@ -30,11 +30,12 @@ type settingKey struct {
 
 // Commands that read settings.
 var (
-	allCommands = []string{"report", "check", "compare", "plan", "photos"}
-	assessing   = []string{"report", "compare", "plan"} // commands that compute rates and dates
+	allCommands = []string{"report", "check", "compare", "plan", "photos", "import", "sheet"}
+	assessing   = []string{"report", "compare", "plan", "sheet"} // commands that compute rates and dates
 	planning    = []string{"report", "plan"}
-	comparing   = []string{"report", "compare"}
+	comparing   = []string{"report", "compare", "sheet"}
 	reportOnly  = []string{"report"}
+	importing   = []string{"import"}
 )
 
 // settingKeys are every setting lossline knows, grouped by what they govern.
@@ -109,6 +110,10 @@ var settingKeys = []settingKey{
 		Help:  "JPEG `quality` of photos in the report (1-100)",
 		Check: within(1, 100, "", true), Used: reportOnly,
 		Set: func(s *settings, v any) { s.Photos.Quality = v.(int) }},
+	{Name: "import", Kind: kindColMap,
+		Help: "the columns of import files by their headers: id, reading, date, unit, note, location, points, sheet (settings files only)",
+		Used: importing,
+		Set:  func(s *settings, v any) { s.Import = v.(columnMap) }},
 	{Name: "templates", Kind: kindFolder, Default: "",
 		Help:  "`folder` whose report texts replace the built-in ones (in a settings file: relative to it)",
 		Check: isFolder, Used: reportOnly,

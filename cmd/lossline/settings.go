@@ -35,6 +35,7 @@ type settings struct {
 	AccelerationPct float64
 	Plan            plan.Settings // Budget 0: no plan
 	Read            survey.Options
+	Import          columnMap    // import: the headers of import files' columns by key (intake.MapKeys)
 	Sources         []string     // files read, lowest precedence first
 	Listing         []settingRow // the settings the command uses, in the order of settingKeys
 }
@@ -76,7 +77,7 @@ func addSettingFlags(c *cobra.Command) {
 	f := c.Flags()
 	f.String("config", "", "settings `FILE` read after the survey's lossline.yaml")
 	for _, k := range settingKeys {
-		if !k.usedBy(c.Name()) || k.Kind == kindPrices {
+		if !k.usedBy(c.Name()) || k.Kind.fileOnly() {
 			continue
 		}
 		if k.Kind == kindSwitch {
@@ -172,7 +173,7 @@ func readEnvironment() (values map[string]any, places map[string]string, problem
 		if text == "" {
 			continue
 		}
-		if k.Kind == kindPrices {
+		if k.Kind.fileOnly() {
 			problems = append(problems, settingProblem{Where: name, Msg: k.Name + " can be given in a settings file only"})
 			continue
 		}
@@ -224,6 +225,12 @@ func valueOf(v *viper.Viper, k settingKey) any {
 			prices[item] = moneyOf(p)
 		}
 		return prices
+	case kindColMap:
+		columns := columnMap{}
+		for key, h := range v.GetStringMap(k.Name) {
+			columns[key] = fmt.Sprint(h)
+		}
+		return columns
 	}
 	return v.GetString(k.Name)
 }
@@ -245,6 +252,13 @@ func (k settingKey) rows(v any, source map[string]string) []settingRow {
 			return s
 		}
 		return "built in"
+	}
+	if columns, ok := v.(columnMap); ok {
+		var rows []settingRow
+		for _, key := range slices.Sorted(maps.Keys(columns)) {
+			rows = append(rows, settingRow{Name: k.Name + "." + key, Value: columns[key], Source: from(k.Name + "." + key)})
+		}
+		return rows
 	}
 	prices, ok := v.(map[string]survey.Money)
 	if !ok {

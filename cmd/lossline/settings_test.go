@@ -213,7 +213,7 @@ func TestSettingKeysTable(t *testing.T) {
 				t.Errorf("%s: no command %q", k.Name, c)
 			}
 		}
-		if k.Kind == kindPrices {
+		if k.Kind.fileOnly() {
 			if k.Default != nil {
 				t.Errorf("%s: prices have no default", k.Name)
 			}
@@ -238,7 +238,7 @@ func TestHelpListsOnlySettingsUsed(t *testing.T) {
 		}
 		for _, k := range settingKeys {
 			listed := strings.Contains(out, "--"+k.Name+" ")
-			if want := k.usedBy(cmd) && k.Kind != kindPrices; listed != want {
+			if want := k.usedBy(cmd) && !k.Kind.fileOnly(); listed != want {
 				t.Errorf("%s --help lists --%s: %v, want %v", cmd, k.Name, listed, want)
 			}
 		}

@@ -62,6 +62,15 @@ func readSettingsFile(path string) (fileSettings, settingProblems) {
 			continue
 		}
 		seen[name] = kn.Line
+		if k.Kind == kindColMap {
+			columns, places, ps := readColumns(path, k, vn)
+			problems = append(problems, ps...)
+			out.Values[name] = columns
+			for key, place := range places {
+				out.Places[name+"."+key] = place
+			}
+			continue
+		}
 		if k.Kind == kindPrices {
 			prices, places, ps := readPrices(path, k, vn)
 			problems = append(problems, ps...)

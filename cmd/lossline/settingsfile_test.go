@@ -56,7 +56,7 @@ func FuzzReadSettingsFile(f *testing.F) {
 			if !ok {
 				t.Fatalf("value of unknown setting %q", name)
 			}
-			if k.Kind == kindPrices || k.Kind == kindFolder {
+			if k.Kind.fileOnly() || k.Kind == kindFolder {
 				continue
 			}
 			back, why := k.read(formatValue(v), "")

@@ -22,6 +22,7 @@ const (
 	kindText               // any text
 	kindFolder             // a folder; in a settings file, relative to that file
 	kindPrices             // item: amount lines; settings files only
+	kindColMap             // key: column header lines (import:); settings files only
 )
 
 // maxMagnitude bounds every number: float64 holds every whole number exactly
@@ -29,6 +30,10 @@ const (
 const maxMagnitude = 1e15
 
 var decimalNumber = regexp.MustCompile(`^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$`)
+
+// fileOnly reports whether settings of the kind are key: value lines, given
+// in settings files only.
+func (k kind) fileOnly() bool { return k == kindPrices || k == kindColMap }
 
 // parseValue reads text as a value of kind k: float64, survey.Money, int,
 // bool or string. Its error completes "value is ...", in words for the user.
@@ -58,6 +63,8 @@ func parseValue(k kind, text string) (any, error) {
 		return nil, errors.New("not true or false")
 	case kindPrices:
 		return nil, errors.New("not a list of prices (give unit-costs in a settings file)")
+	case kindColMap:
+		return nil, errors.New("not a list of columns (give import in a settings file, or --map)")
 	}
 	return text, nil
 }
