@@ -38,13 +38,13 @@ func percent(p float64, reached bool) string {
 }
 
 // breachModelShort names a breach's model in a few words.
-func breachModelShort(b plan.Breach, visits int) string {
+func breachModelShort(b plan.Breach) string {
 	switch {
 	case b.Reached:
 		return "at or below required"
 	case b.Spread.Kind == plan.SpreadStudentT:
 		return fmt.Sprintf("fit, Student t (%d dof)", b.Spread.DOF)
-	case b.Spread.Kind == plan.SpreadNormal && visits > 2:
+	case b.Spread.Kind == plan.SpreadNormal && b.Spread.N > 2:
 		return "fit, normal (gauge)"
 	case b.Spread.Kind == plan.SpreadNormal:
 		return "two visits, normal (gauge)"
@@ -115,7 +115,7 @@ func (d *doc) breachSection() {
 			if s := r.b.Spread; s.Kind >= plan.SpreadNormal {
 				rate = d.u.rate(&s.Rate) + " ± " + d.u.rate(&s.Scale)
 			}
-			rows[i] = []string{r.it.CML.ID, r.it.Asset.Name + " / " + r.it.Component.Name, breachModelShort(r.b, len(r.it.CML.Visits)), rate}
+			rows[i] = []string{r.it.CML.ID, r.it.Asset.Name + " / " + r.it.Component.Name, breachModelShort(r.b), rate}
 			for _, y := range years {
 				rows[i] = append(rows[i], percent(r.b.P[y], r.b.Reached))
 			}

@@ -29,6 +29,7 @@ type RateSpread struct {
 	Scale float64 // standard error of the rate, mm/y
 	DOF   int     // Student t only
 	Tol   float64 // the gauge tolerance it was built with, mm
+	N     int     // visits it rests on
 }
 
 // Exceeds is P(R ≥ need): the probability that the true rate is at least need.
@@ -68,9 +69,12 @@ func (s RateSpread) Describe() string {
 	case SpreadEstimate:
 		return "single-visit estimate: no probability"
 	case SpreadNormal:
-		return fmt.Sprintf("normal, rate %.4f ± %.4f mm/y (gauge tolerance)", s.Rate, s.Scale)
+		if s.N > 2 {
+			return fmt.Sprintf("least-squares fit of %d visits, normal with the gauge's error: rate %.4f ± %.4f mm/y", s.N, s.Rate, s.Scale)
+		}
+		return fmt.Sprintf("two visits, normal with the gauge tolerance on both readings: rate %.4f ± %.4f mm/y", s.Rate, s.Scale)
 	case SpreadStudentT:
-		return fmt.Sprintf("Student t, %d dof, rate %.4f ± %.4f mm/y (fit)", s.DOF, s.Rate, s.Scale)
+		return fmt.Sprintf("least-squares fit of %d visits, Student t with %d degrees of freedom: rate %.4f ± %.4f mm/y", s.N, s.DOF, s.Rate, s.Scale)
 	}
 	return "no probability (no readings or no required thickness)"
 }
@@ -101,7 +105,7 @@ func SpreadOf(readings []wallloss.Reading, tolMM float64) RateSpread {
 		if dt <= 0 {
 			return RateSpread{Kind: SpreadNone}
 		}
-		return RateSpread{Kind: SpreadNormal, Rate: (a.ThicknessMM - b.ThicknessMM) / dt, Scale: math.Sqrt2 * sigma / dt, Tol: tolMM}
+		return RateSpread{Kind: SpreadNormal, Rate: (a.ThicknessMM - b.ThicknessMM) / dt, Scale: math.Sqrt2 * sigma / dt, Tol: tolMM, N: 2}
 	}
 	f, ok := wallloss.FitLine(readings)
 	if !ok {
@@ -119,9 +123,9 @@ func SpreadOf(readings []wallloss.Reading, tolMM float64) RateSpread {
 	}
 	gauge := sigma / math.Sqrt(stt)
 	if f.SESlope < gauge {
-		return RateSpread{Kind: SpreadNormal, Rate: -f.Slope, Scale: gauge, Tol: tolMM}
+		return RateSpread{Kind: SpreadNormal, Rate: -f.Slope, Scale: gauge, Tol: tolMM, N: n}
 	}
-	return RateSpread{Kind: SpreadStudentT, Rate: -f.Slope, Scale: f.SESlope, DOF: f.N - 2, Tol: tolMM}
+	return RateSpread{Kind: SpreadStudentT, Rate: -f.Slope, Scale: f.SESlope, DOF: f.N - 2, Tol: tolMM, N: n}
 }
 
 // Breach is the probability that a CML's wall reaches its required thickness
