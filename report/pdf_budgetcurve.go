@@ -25,6 +25,7 @@ func (d *doc) budgetCurve(c plan.Curve, cur string) {
 	if c.RiskYear {
 		unit = "risk-years removed"
 	}
+	d.need(curveH + 50) // heading, text and chart on one page
 	d.heading(1, "Budget curve")
 	d.text(fmt.Sprintf("The most %s by the first year's selection for each first-year budget, the year's mandatory repairs "+
 		"(%s %s) paid first: what more money would buy. %s The command lossline plan with the flag curve writes its steps as CSV.",
@@ -33,7 +34,7 @@ func (d *doc) budgetCurve(c plan.Curve, cur string) {
 		d.text("No repair is left for the selection, so there is no curve.")
 		return
 	}
-	d.need(curveH + 24)
+	d.need(curveH + 20)
 	p := d.pdf
 	x0, y0 := margin+curveLeft, p.GetY()+6
 	w, h := d.width()-curveLeft-6, curveH-curveBottom

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"slices"
 	"strconv"
+	"strings"
 
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/plan"
@@ -164,6 +165,9 @@ func (d *doc) planSection() {
 	if len(rp.Plans) > 1 {
 		d.heading(1, "The two plans side by side")
 		h, rows := comparison(rp.Plans, cur, false)
+		for i := range h {
+			h[i] = strings.ToUpper(h[i][:1]) + h[i][1:]
+		}
 		cols := []column{{h[0], 60, "L"}, {h[1], 22, "R"}, {h[2], 22, "R"}, {h[3], 38, "L"}, {h[4], 38, "L"}}
 		d.table(cols, rows, nil, smallSize)
 	}

@@ -474,12 +474,16 @@ func CurveCSV(c plan.Curve, currency string) ([]byte, error) {
 
 // CurveMethod says how the curve was computed and what it is exact at.
 func CurveMethod(c plan.Curve, currency string) string {
-	s := "Computed by " + c.Method
-	if c.Grid > 0 {
-		s += fmt.Sprintf(" (a step of %s %s, the greatest common divisor of the costs)", c.Grid, currency)
+	grid := fmt.Sprintf("the cost grid (steps of %s %s, the greatest common divisor of the costs; %d steps)", c.Grid, currency, c.GridSteps)
+	switch {
+	case c.Method == plan.CurveCostGrid && c.Grid > 0:
+		return "Computed by dynamic programming over " + grid + ": exact at every budget; each step holds until the next."
+	case c.Method == plan.CurveCostGrid:
+		return "No repair is left to the selection."
+	case c.Steps:
+		return fmt.Sprintf("Computed by %s, %d values, a smaller table than %s: exact at every budget; each step holds until the next.",
+			c.Method, c.ValueSteps, grid)
 	}
-	if c.Steps {
-		return s + ": exact at every budget; each step holds until the next."
-	}
-	return s + ": the table of every step was too large (too many repairs with costs too fine); each point is exact or carries its upper bound, and between points nothing is computed."
+	return fmt.Sprintf("Both exact tables are too large here: %s, and %d risk values. Computed by %s instead: each point is exact "+
+		"or carries its upper bound (the search stopped at its limit), and between points nothing is computed.", grid, c.ValueSteps, c.Method)
 }

@@ -367,3 +367,24 @@ func TestCurveCSV(t *testing.T) {
 		t.Errorf("%d budget rows, %d knee rows:\n%s", budget, knee, out)
 	}
 }
+
+// A curve known only at sampled amounts (too many repairs for either exact
+// table) draws as points with their bounds, and says so; the PDF is made.
+func TestSampledCurveDraws(t *testing.T) {
+	s, problems := survey.LoadSeries("../testdata/demo", nil, survey.DefaultOptions)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	f := findings.Compute(s, findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25,
+		Plan: plan.Settings{Budget: 60_000_00, Years: 1, Costs: plan.Costs{Currency: "EUR", Unit: map[string]survey.Money{"pipe-m": 950_00, "recoat-m2": 85_00}}}})
+	f.Repairs.Curve = plan.Curve{Method: plan.CurveSampled + " (60 amounts)", Grid: 1, GridSteps: 9_000_000, ValueSteps: 60_000_000, Forced: 34_200_00, Money: 25_800_00, AtMoney: 3, Total: 90_000_00, Knee: 1,
+		Points: []plan.CurvePoint{{Budget: 34_200_00, Exact: true}, {Budget: 79_200_00, Money: 45_000_00, Removed: 8, Exact: false, Bound: 9.5},
+			{Budget: 124_200_00, Money: 90_000_00, Removed: 12, Exact: true, Bound: 12}}}
+	if m := CurveMethod(f.Repairs.Curve, "EUR"); !strings.Contains(m, "between points nothing is computed") {
+		t.Errorf("sampled curve method: %s", m)
+	}
+	out, _, err := PDF(f, testOptions())
+	if err != nil || len(out) == 0 {
+		t.Fatalf("PDF with a sampled curve: %v", err)
+	}
+}

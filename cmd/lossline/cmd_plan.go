@@ -83,6 +83,9 @@ func runPlan(c *cobra.Command, args []string) error {
 	r := findings.PlanAcross(surveys, set.findings())
 	var out []byte
 	if curve, _ := c.Flags().GetBool("curve"); curve {
+		// How the curve was computed, and what it is exact at, goes to
+		// stderr beside the CSV.
+		fmt.Fprintln(c.ErrOrStderr(), report.CurveMethod(r.Curve, set.Plan.Costs.Currency))
 		out, err = report.CurveCSV(r.Curve, set.Plan.Costs.Currency)
 	} else {
 		asCSV, _ := c.Flags().GetBool("csv")

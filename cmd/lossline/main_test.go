@@ -125,6 +125,14 @@ func TestPlanCommand(t *testing.T) {
 		!strings.Contains(out, "\nmandatory-funded,1,1,\"Transfer line P-220 / Circuit P-220-A (above ground, coastal exposure)\",34200,25,5,20,60,") {
 		t.Errorf("plan --csv:\n%s", out)
 	}
+	// The budget curve: steps as CSV, the plan's budget and the knee marked,
+	// how it was computed on stderr.
+	code, out, errOut = runCLI(t, "plan", "../../testdata/demo", "--curve")
+	if code != exitOK || !strings.HasPrefix(out, "budget_eur,selection_money_eur,risk_years_removed,exact,upper_bound,mark\n") ||
+		!strings.Contains(out, "\n60000,25800,15,true,15,budget\n") || !strings.Contains(out, ",knee\n") ||
+		!strings.Contains(errOut, "exact at every budget") {
+		t.Errorf("plan --curve: exit %d\n%s%s", code, out, errOut)
+	}
 	// Several surveys in one plan; components without a repair cost are named.
 	_, out, _ = runCLI(t, "plan", "../../testdata/demo", "../../testdata/demo-2021")
 	if !strings.Contains(out, "Footbridge FB-2 / Girder G1 bottom flange is not in the plan: no repair cost in the checklist.") {

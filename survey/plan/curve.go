@@ -26,7 +26,10 @@ type Curve struct {
 	// curve is exact at every budget. Otherwise only the points are known.
 	Steps    bool
 	Method   string       // how it was computed, in words
-	Grid     survey.Money // the cost grid of dynamic programming over costs (0 otherwise)
+	Grid     survey.Money // the cost grid's step: the greatest common divisor of the costs
+	// GridSteps and ValueSteps are the sizes of the two exact tables: steps
+	// of the cost grid up to Total, and risk values up to their sum.
+	GridSteps, ValueSteps int64
 	Forced   survey.Money // the year's mandatory repairs, paid before the selection
 	Money    survey.Money // the money the plan's selection had in year 1
 	AtMoney  int64        // what the curve gives there
@@ -96,7 +99,10 @@ func curveOf(items []Item) Curve {
 		sum += it.Value
 		g = gcd(g, it.Cost)
 	}
-	c := Curve{Total: survey.Money(total), Knee: -1}
+	c := Curve{Total: survey.Money(total), Knee: -1, Grid: survey.Money(g), ValueSteps: sum}
+	if g > 0 {
+		c.GridSteps = total / g
+	}
 	n := int64(len(items))
 	// The two exact tables: n × (total / g) cells over costs, n × sum over
 	// values; the smaller is used (the cost grid when it is small anyway).
@@ -106,7 +112,7 @@ func curveOf(items []Item) Curve {
 	case n == 0:
 		c.Points, c.Steps, c.Method = []CurvePoint{{Exact: true}}, true, CurveCostGrid
 	case byCost && (total/g <= curveGridSmall || !byValue || total/g <= sum):
-		c.Points, c.Steps, c.Method, c.Grid = curveByCost(items, total/g, g), true, CurveCostGrid, survey.Money(g)
+		c.Points, c.Steps, c.Method = curveByCost(items, total/g, g), true, CurveCostGrid
 	case byValue:
 		c.Points, c.Steps, c.Method = curveByValue(items, sum), true, CurveRiskSteps
 	default:
