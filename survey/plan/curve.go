@@ -24,18 +24,18 @@ type Curve struct {
 	Points []CurvePoint
 	// Steps: the value holds from each point to the next exactly, so the
 	// curve is exact at every budget. Otherwise only the points are known.
-	Steps    bool
-	Method   string       // how it was computed, in words
-	Grid     survey.Money // the cost grid's step: the greatest common divisor of the costs
+	Steps  bool
+	Method string       // how it was computed, in words
+	Grid   survey.Money // the cost grid's step: the greatest common divisor of the costs
 	// GridSteps and ValueSteps are the sizes of the two exact tables: steps
 	// of the cost grid up to Total, and risk values up to their sum.
 	GridSteps, ValueSteps int64
-	Forced   survey.Money // the year's mandatory repairs, paid before the selection
-	Money    survey.Money // the money the plan's selection had in year 1
-	AtMoney  int64        // what the curve gives there
-	Total    survey.Money // the money that funds every repair worth something
-	Knee     int          // index into Points; -1 when there is none
-	RiskYear bool         // values are risk-years (a plan over several years)
+	Forced                survey.Money // the year's mandatory repairs, paid before the selection
+	Money                 survey.Money // the money the plan's selection had in year 1
+	AtMoney               int64        // what the curve gives there
+	Total                 survey.Money // the money that funds every repair worth something
+	Knee                  int          // index into Points; -1 when there is none
+	RiskYear              bool         // values are risk-years (a plan over several years)
 }
 
 // Curve methods.
