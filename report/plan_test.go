@@ -172,6 +172,7 @@ func cellInt(t *testing.T, row map[string]string, col string) int64 {
 func TestPlanPrintedNumbersReproduceTheChoice(t *testing.T) {
 	rng := rand.New(rand.NewPCG(13, 17))
 	money := plan.MoneyModel{FailureCost: [6]survey.Money{0, 20_000_00, 60_000_00, 150_000_00, 400_000_00, 900_000_00}, DiscountPct: 4}
+	mandatory := 0
 	for trial := 0; trial < 300; trial++ {
 		n := 2 + rng.IntN(6)
 		cands := make([]*plan.Candidate, n)
@@ -196,18 +197,30 @@ func TestPlanPrintedNumbersReproduceTheChoice(t *testing.T) {
 		}
 		rows := printed(t, out)
 		name := fmt.Sprintf("trial %d (%d years, carry-over %v, %s)", trial, years, o.CarryOver, o.Objective)
-		// Money the mandatory rows took, per year; a mandatory row left
-		// unfunded takes a year's money whole.
+		// Money the mandatory rows took, per year. A year is blocked (its
+		// money all goes to mandatory repairs) while a mandatory row that is
+		// urgent by then (at or below required, or past its retirement date
+		// at the year's start) is not yet funded.
 		forced := make([]int64, years)
+		blocked := make([]bool, years)
 		var sel []map[string]string
-		unfundedMandatory := false
 		for _, r := range rows {
 			switch r["status"] {
-			case "mandatory-funded":
+			case "mandatory-funded", "mandatory-unfunded":
 				y, _ := strconv.Atoi(r["year"])
-				forced[y-1] += cellInt(t, r, "cost_eur")
-			case "mandatory-unfunded":
-				unfundedMandatory = true
+				if y > 0 {
+					forced[y-1] += cellInt(t, r, "cost_eur")
+				}
+				retires, err := time.Parse("2006-01-02", r["retirement_date"])
+				if err != nil {
+					t.Fatalf("%s: mandatory row without a retirement date: %v", name, r)
+				}
+				for u := 1; u <= years; u++ {
+					urgent := !retires.After(wallloss.AddYears(planStart, float64(u-1)))
+					if urgent && (y == 0 || y > u) {
+						blocked[u-1] = true
+					}
+				}
 			case "funded", "deferred":
 				sel = append(sel, r)
 			default:
@@ -216,9 +229,6 @@ func TestPlanPrintedNumbersReproduceTheChoice(t *testing.T) {
 			if r["risk_reduction"] != strconv.FormatInt(cellInt(t, r, "risk_at_year_start")-cellInt(t, r, "risk_after_repair"), 10) {
 				t.Errorf("%s: reduction is not risk − after in %v", name, r)
 			}
-		}
-		if unfundedMandatory {
-			continue // the year's money went to mandatory repairs by rule
 		}
 		value := func(r map[string]string, y int) int64 {
 			switch {
@@ -236,7 +246,7 @@ func TestPlanPrintedNumbersReproduceTheChoice(t *testing.T) {
 			for y := range years {
 				budget += int64(budgets[y])
 				spent += forced[y] + spend[y]
-				if o.CarryOver && spent > budget || !o.CarryOver && forced[y]+spend[y] > int64(budgets[y]) {
+				if o.CarryOver && spent > budget || !o.CarryOver && forced[y]+spend[y] > int64(budgets[y]) || blocked[y] && spend[y] > 0 {
 					return false
 				}
 			}
@@ -285,6 +295,12 @@ func TestPlanPrintedNumbersReproduceTheChoice(t *testing.T) {
 		if got != best {
 			t.Fatalf("%s: the funded rows are worth %d, a brute force over the printed numbers finds %d\n%s", name, got, best, out)
 		}
+		if strings.Contains(string(out), "mandatory-") {
+			mandatory++
+		}
+	}
+	if mandatory < 30 {
+		t.Errorf("only %d of the instances have mandatory rows", mandatory)
 	}
 }
 

@@ -28,7 +28,6 @@ type RateSpread struct {
 	Rate  float64 // centre, mm/y; negative when the readings grow
 	Scale float64 // standard error of the rate, mm/y
 	DOF   int     // Student t only
-	Tol   float64 // the gauge tolerance it was built with, mm
 	N     int     // visits it rests on
 }
 
@@ -105,7 +104,7 @@ func SpreadOf(readings []wallloss.Reading, tolMM float64) RateSpread {
 		if dt <= 0 {
 			return RateSpread{Kind: SpreadNone}
 		}
-		return RateSpread{Kind: SpreadNormal, Rate: (a.ThicknessMM - b.ThicknessMM) / dt, Scale: math.Sqrt2 * sigma / dt, Tol: tolMM, N: 2}
+		return RateSpread{Kind: SpreadNormal, Rate: (a.ThicknessMM - b.ThicknessMM) / dt, Scale: math.Sqrt2 * sigma / dt, N: 2}
 	}
 	f, ok := wallloss.FitLine(readings)
 	if !ok {
@@ -123,9 +122,9 @@ func SpreadOf(readings []wallloss.Reading, tolMM float64) RateSpread {
 	}
 	gauge := sigma / math.Sqrt(stt)
 	if f.SESlope < gauge {
-		return RateSpread{Kind: SpreadNormal, Rate: -f.Slope, Scale: gauge, Tol: tolMM, N: n}
+		return RateSpread{Kind: SpreadNormal, Rate: -f.Slope, Scale: gauge, N: n}
 	}
-	return RateSpread{Kind: SpreadStudentT, Rate: -f.Slope, Scale: f.SESlope, DOF: f.N - 2, Tol: tolMM, N: n}
+	return RateSpread{Kind: SpreadStudentT, Rate: -f.Slope, Scale: f.SESlope, DOF: f.N - 2, N: n}
 }
 
 // Breach is the probability that a CML's wall reaches its required thickness

@@ -84,9 +84,6 @@ func (c Curve) at(m survey.Money) int64 {
 	return v
 }
 
-// At is the risk the selection removes with money m (exact only when Steps).
-func (c Curve) At(m survey.Money) int64 { return c.at(m) }
-
 // curveOf computes the most value for every amount of money, items with a
 // positive value only: over the cost grid when the table is small enough,
 // else over the values, else at sampled amounts.

@@ -34,11 +34,11 @@ func (m MoneyModel) discount(t int) *big.Rat {
 	return d
 }
 
-// Exposure is a component's expected failure cost over the plan, discounted
+// exposure is a component's expected failure cost over the plan, discounted
 // to the plan's start: the failure cost times the probability that its worst
 // CML first reaches the required thickness in each plan year, charged at the
 // end of that year.
-type Exposure struct {
+type exposure struct {
 	Known  bool   // every CML of the component has a probability of breach
 	Reason string // why not, when not known
 	None   *big.Rat
@@ -48,9 +48,9 @@ type Exposure struct {
 }
 
 // exposureOf works out a candidate's exposure over years plan years.
-func exposureOf(c *Candidate, m MoneyModel, tol float64, start time.Time, years int) Exposure {
+func exposureOf(c *Candidate, m MoneyModel, tol float64, start time.Time, years int) exposure {
 	level := ConsequenceLevel(c.Component.Design.Consequence)
-	e := Exposure{}
+	e := exposure{}
 	if !m.Given(level) {
 		e.Reason = "no failure cost for consequence " + survey.Consequence(level).String()
 		return e
@@ -119,7 +119,7 @@ func exposureOf(c *Candidate, m MoneyModel, tol float64, start time.Time, years 
 // saving is what repairing in plan year y saves in expected money, to the
 // cent: the failure cost avoided less the repair cost, both discounted to
 // the plan's start (the repair paid at the start of its year).
-func (e Exposure) saving(cost survey.Money, m MoneyModel, y int) int64 {
+func (e exposure) saving(cost survey.Money, m MoneyModel, y int) int64 {
 	s := new(big.Rat).Sub(e.None, e.with[y-1])
 	pv := new(big.Rat).Mul(new(big.Rat).SetInt64(int64(cost)), m.discount(y-1))
 	return roundCents(s.Sub(s, pv))

@@ -148,7 +148,7 @@ func Schedule(cands []*Candidate, start time.Time, budgets []survey.Money, o Opt
 		o.Objective = ObjectiveRisk
 	}
 	years := len(budgets)
-	val := valuation{objective: o.Objective, start: start, years: years, money: o.Money, tol: o.ToleranceMM}
+	val := valuation{objective: o.Objective, start: start, years: years, money: o.Money}
 	p := Plan{Objective: o.Objective, Start: start, Budgets: budgets, CarryOver: o.CarryOver, Money: o.Money,
 		Spent: make([]survey.Money, years), Mandatory: make([]survey.Money, years), Selection: make([]survey.Money, years)}
 	s := &scheduler{val: val, budgets: budgets, carry: o.CarryOver, forced: make([]int64, years), blocked: make([]bool, years),
@@ -205,7 +205,7 @@ func Schedule(cands []*Candidate, start time.Time, budgets []survey.Money, o Opt
 	}
 
 	// The selection: what the mandatory repairs leave.
-	exposures := map[*Candidate]Exposure{}
+	exposures := map[*Candidate]exposure{}
 	if o.Money.anyGiven() {
 		for _, c := range cands {
 			exposures[c] = exposureOf(c, o.Money, o.ToleranceMM, start, years)
@@ -337,7 +337,8 @@ func (s *scheduler) fund(c *Candidate, y int) {
 }
 
 // urgent funds mandatory repairs in year y: all when the year can pay for
-// them; else the set removing the most risk, and the year is blocked.
+// them; else the set removing the most risk (then any others that still
+// fit), and the year is blocked: nothing else is funded in it.
 func (s *scheduler) urgent(y int, list []*Candidate) {
 	var need survey.Money
 	for _, c := range list {
@@ -360,11 +361,19 @@ func (s *scheduler) urgent(y int, list []*Candidate) {
 		s.fund(list[i], y)
 		s.knapsacked[list[i]] = true
 	}
+	// Those that remove no risk are left out of the knapsack; the money
+	// left still pays for any that fit, in order.
+	for _, c := range list {
+		if s.year[c] == 0 && s.available(y) >= int64(c.Cost) {
+			s.fund(c, y)
+			s.knapsacked[c] = true
+		}
+	}
 	s.blocked[y-1] = true
 }
 
 // totalsOf adds up what the plan achieves.
-func totalsOf(p Plan, exposures map[*Candidate]Exposure, val valuation) Totals {
+func totalsOf(p Plan, exposures map[*Candidate]exposure, val valuation) Totals {
 	t := Totals{}
 	risk := val
 	risk.objective = ObjectiveRisk

@@ -27,7 +27,6 @@ type valuation struct {
 	start     time.Time
 	years     int
 	money     MoneyModel
-	tol       float64 // gauge tolerance, mm
 }
 
 func (v valuation) yearStart(y int) time.Time { return wallloss.AddYears(v.start, float64(y-1)) }
@@ -63,7 +62,7 @@ func (v valuation) riskYears(c *Candidate, y int) int64 {
 // values are what funding the candidate in each plan year is worth under
 // the objective: risk-years removed, or cents saved. exp is its exposure
 // (money objective only).
-func (v valuation) values(c *Candidate, exp Exposure) []int64 {
+func (v valuation) values(c *Candidate, exp exposure) []int64 {
 	out := make([]int64, v.years)
 	for y := 1; y <= v.years; y++ {
 		switch {
