@@ -1,6 +1,8 @@
 package findings
 
 import (
+	"time"
+
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/plan"
 	"github.com/lossline/lossline/survey/wallloss"
@@ -24,6 +26,9 @@ type Findings struct {
 	Matrix   plan.Matrix        // CMLs per likelihood and consequence
 	Photos   *survey.PhotoIndex
 	Repairs  *Repairs // nil when no budget is set
+	// Breach is each item's probability of reaching its required thickness
+	// by the end of each plan year, in rank order.
+	Breach []plan.Breach
 
 	item      map[*survey.CML]int
 	risk      []plan.Risk
@@ -32,8 +37,31 @@ type Findings struct {
 
 // Repairs is the repair plan for the budget of the settings.
 type Repairs struct {
-	Plan   plan.Plan
+	Plan   plan.Plan     // the plan for the settings' objective (with "both": the risk plan)
+	Plans  []plan.Plan   // every plan asked for, Plan first (two with the objective "both")
+	Curve  plan.Curve    // the budget curve of the risk plan's first year
 	NoCost []plan.NoCost // components left out for want of a cost
+}
+
+// repairsOf makes the plans asked for and the budget curve.
+func repairsOf(cands []*plan.Candidate, noCost []plan.NoCost, set Settings, start time.Time) *Repairs {
+	ps := set.planSettings()
+	plans := ps.Make(cands, start)
+	r := &Repairs{Plan: plans[0], Plans: plans, NoCost: noCost}
+	risk := plans[0]
+	if risk.Objective != plan.ObjectiveRisk {
+		ps.Objective = "risk"
+		risk = ps.Make(cands, start)[0]
+	}
+	r.Curve = risk.BudgetCurve()
+	return r
+}
+
+// planSettings are the plan settings with the rate policy's gauge tolerance.
+func (set Settings) planSettings() plan.Settings {
+	ps := set.Plan
+	ps.ToleranceMM = set.Policy.ToleranceMM
+	return ps
 }
 
 // Compute assesses, compares, scores and plans a loaded survey.
@@ -56,9 +84,14 @@ func Compute(s *survey.Survey, set Settings) *Findings {
 			f.governing[it.Component] = it // items are in rank order: the first is the most urgent
 		}
 	}
+	ends := plan.YearEnds(s.Date, set.Plan.Years)
+	f.Breach = make([]plan.Breach, len(items))
+	for i, it := range items {
+		f.Breach[i] = plan.BreachOf(it, set.Policy.ToleranceMM, ends)
+	}
 	if set.Plan.Budget > 0 {
 		cands, noCost := plan.Candidates(s.Title, items, set.Plan.Costs)
-		f.Repairs = &Repairs{Plan: set.Plan.Make(cands, s.Date), NoCost: noCost}
+		f.Repairs = repairsOf(cands, noCost, set, s.Date)
 	}
 	return f
 }
@@ -82,12 +115,15 @@ func (f *Findings) Change(m *survey.CML) survey.Change {
 // Risk is the risk of an assessed CML.
 func (f *Findings) Risk(it *survey.Assessed) plan.Risk { return f.risk[f.item[it.CML]] }
 
+// BreachOf is an assessed CML's probability of breach per plan year.
+func (f *Findings) BreachOf(it *survey.Assessed) plan.Breach { return f.Breach[f.item[it.CML]] }
+
 // Governing is a component's most urgent CML; nil when it has none.
 func (f *Findings) Governing(c *survey.Component) *survey.Assessed { return f.governing[c] }
 
 // PlanAcross plans repairs over several surveys with one budget, its first
 // year starting at the newest survey's date.
-func PlanAcross(surveys []*survey.Survey, set Settings) Repairs {
+func PlanAcross(surveys []*survey.Survey, set Settings) *Repairs {
 	var cands []*plan.Candidate
 	var noCost []plan.NoCost
 	var latest *survey.Survey
@@ -98,5 +134,5 @@ func PlanAcross(surveys []*survey.Survey, set Settings) Repairs {
 			latest = s
 		}
 	}
-	return Repairs{Plan: set.Plan.Make(cands, latest.Date), NoCost: noCost}
+	return repairsOf(cands, noCost, set, latest.Date)
 }

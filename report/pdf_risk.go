@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"slices"
 	"strconv"
+	"strings"
 
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/plan"
@@ -68,10 +69,10 @@ func (d *doc) riskSection() {
 	d.font("", bodySize)
 
 	type compRisk struct {
-		name  string
-		top   plan.Risk
-		cml   string
-		total int
+		name     string
+		top      plan.Risk
+		cml      string
+		cmls, at int // CMLs assessed, and how many of them have the top score
 	}
 	var comps []compRisk
 	for _, a := range d.s.Assets {
@@ -80,9 +81,12 @@ func (d *doc) riskSection() {
 			for _, m := range c.CMLs {
 				if it := d.f.Item(m); it != nil {
 					r := d.f.Risk(it)
-					cr.total += r.Score()
-					if r.Score() > cr.top.Score() {
-						cr.top, cr.cml = r, m.ID
+					cr.cmls++
+					switch {
+					case r.Score() > cr.top.Score():
+						cr.top, cr.cml, cr.at = r, m.ID, 1
+					case r.Score() == cr.top.Score():
+						cr.at++
 					}
 				}
 			}
@@ -91,77 +95,129 @@ func (d *doc) riskSection() {
 			}
 		}
 	}
+	// Highest risk first; at equal scores the likelier first. The number of
+	// CMLs never orders them: a component's risk is its worst CML's.
 	slices.SortStableFunc(comps, func(a, b compRisk) int {
 		if a.top.Score() != b.top.Score() {
 			return b.top.Score() - a.top.Score()
 		}
-		return b.total - a.total
+		return int(b.top.Likelihood) - int(a.top.Likelihood)
 	})
 	d.heading(1, "Components by risk")
+	d.text("A component's risk is that of its worst CML, so a component does not grow riskier by having more CMLs; the repair plan weighs the same risk.")
+	d.pdf.Ln(1)
 	rows := make([][]string, len(comps))
 	styles := make([]rowStyle, len(comps))
 	for i, c := range comps {
 		rows[i] = []string{c.name, c.cml, c.top.Likelihood.String(), survey.Consequence(c.top.Consequence).String(),
-			fmt.Sprintf("%s (%d)", c.top.Level(), c.top.Score()), strconv.Itoa(c.total)}
+			fmt.Sprintf("%s (%d)", c.top.Level(), c.top.Score()), fmt.Sprintf("%d of %d", c.at, c.cmls)}
 		styles[i] = rowStyle{bold: c.top.Level() == "very high", shade: c.top.Level() == "very high"}
 	}
 	d.table([]column{{"Asset / component", 62, "L"}, {"Highest-risk CML", 22, "L"}, {"Likelihood", 24, "L"},
-		{"Consequence", 22, "L"}, {"Risk", 26, "L"}, {"Sum of CML scores", 24, "R"}}, rows, func(i int) rowStyle { return styles[i] }, smallSize)
+		{"Consequence", 22, "L"}, {"Risk (worst CML)", 26, "L"}, {"CMLs at that risk", 24, "R"}}, rows, func(i int) rowStyle { return styles[i] }, smallSize)
+	d.breachSection()
 }
 
-// planSection writes the repair plan for the budget of the settings.
+// planSection writes the repair plan for the budget of the settings: the
+// funded rows with the numbers they were chosen on, the others with the risk
+// they carry at the end of the plan, the notes, the two objectives side by
+// side when both were asked for, and the budget curve.
 func (d *doc) planSection() {
 	rp := d.f.Repairs
 	if rp == nil {
 		return
 	}
-	p, noCost, cur := rp.Plan, rp.NoCost, d.f.Settings.Plan.Costs.Currency
+	cur := d.f.Settings.Plan.Costs.Currency
 	d.newPage(false)
 	d.heading(0, "Repair plan")
+	p := rp.Plan
 	budgets := p.Budgets
 	what := fmt.Sprintf("a budget of %s %s for one year from %s", budgets[0], cur, d.s.Date.Format(dateLayout))
 	if len(budgets) > 1 {
 		what = fmt.Sprintf("%d years from %s: %s %s in the first year, then %s %s a year", len(budgets), d.s.Date.Format(dateLayout),
 			budgets[0], cur, budgets[1], cur)
 	}
-	d.text(fmt.Sprintf("Repairs for %s. Components with a CML at or below required come first; "+
-		"then, year by year, components whose retirement date falls inside the plan, in date order, each in the first year "+
-		"whose budget covers it; then the set of the others that removes the most risk for what is left (a 0/1 knapsack, "+
-		"risk recomputed at the start of each year as walls keep thinning). A repair restores its CMLs to nominal thickness "+
-		"(or the repair thickness written) at the same rate. Unspent money is not carried over. Risk scores as in the Risk section.",
-		what))
-	d.pdf.Ln(1)
-	rows := planRows(p, false)
-	funded := rows[:len(p.Chosen)]
-	deferred := rows[len(p.Chosen):]
-	cols := []column{{"Year", 13, "L"}, {"Asset / component", 56, "L"}, {"Cost (" + cur + ")", 22, "R"},
-		{"Risk before", 15, "R"}, {"Risk after", 15, "R"}, {"Retirement date", 21, "L"}, {"Why", 38, "L"}}
-	pick := func(rs [][]string) [][]string {
-		var out [][]string
-		for _, r := range rs {
-			out = append(out, []string{r[0], r[2], r[3], r[4], r[5], r[7], r[8]})
-		}
-		return out
+	carry := "Unspent money is not carried over."
+	if p.CarryOver {
+		carry = "Unspent money is carried over to the next year."
 	}
-	d.heading(1, "Funded")
+	d.text(fmt.Sprintf("Repairs for %s. Mandatory repairs come first: components with a CML at or below required, then "+
+		"those whose retirement date falls inside the plan, in date order, each in the first year whose money covers it. "+
+		"The money left buys the selection: the set of the other repairs worth most under the objective (a 0/1 knapsack), "+
+		"risk recomputed at the start of each year as walls keep thinning. A repair restores its CMLs to nominal thickness "+
+		"(or the repair thickness written) at the same rate. %s A component's risk is its worst CML's. Every row shows the "+
+		"numbers it was decided on: the risk at the start of the year the numbers are from (the year funded, or for a row not "+
+		"funded the last year it was passed over) and what a repair then removes; the risk a row not funded still carries at "+
+		"the end of the plan is in its own column.", what, carry))
+	d.pdf.Ln(1)
+	for _, pl := range rp.Plans {
+		if len(rp.Plans) > 1 {
+			d.heading(1, "Plan for the objective "+string(pl.Objective))
+		}
+		d.planTables(pl, cur, len(rp.Plans) > 1)
+		var md string
+		notes := append([]string{objectiveNote(pl, cur)}, planNotes(pl, rp.NoCost, cur)...)
+		for _, n := range append(notes, totalsNote(pl, cur)...) {
+			md += "- " + n + "\n"
+		}
+		d.markdown(md)
+	}
+	if len(rp.Plans) > 1 {
+		d.heading(1, "The two plans side by side")
+		h, rows := comparison(rp.Plans, cur, false)
+		for i := range h {
+			h[i] = strings.ToUpper(h[i][:1]) + h[i][1:]
+		}
+		cols := []column{{h[0], 60, "L"}, {h[1], 22, "R"}, {h[2], 22, "R"}, {h[3], 38, "L"}, {h[4], 38, "L"}}
+		d.table(cols, rows, nil, smallSize)
+	}
+	d.budgetCurve(rp.Curve, cur)
+}
+
+// planTables draws a plan's funded rows and the others.
+func (d *doc) planTables(p plan.Plan, cur string, sub bool) {
+	value := func(c plan.Choice) string { return strconv.Itoa(c.Reduction()) }
+	valueTitle := "Reduction"
+	switch {
+	case p.Objective == plan.ObjectiveMoney:
+		valueTitle = "Saving (" + cur + ")"
+		value = func(c plan.Choice) string { return cents(c.Value, false) }
+	case len(p.Budgets) > 1:
+		valueTitle = "Risk-years"
+		value = func(c plan.Choice) string { return strconv.FormatInt(c.Value, 10) }
+	}
+	level := 1
+	if sub {
+		level = 2
+	}
+	funded, other := p.Funded(), p.Unfunded()
+	d.heading(level, "Funded")
 	if len(funded) == 0 {
 		d.text("Nothing can be funded.")
 	} else {
-		d.table(cols, pick(funded), nil, smallSize)
-	}
-	d.heading(1, "Deferred, with the risk they still carry")
-	if len(deferred) == 0 {
-		d.text("Nothing is deferred.")
-	} else {
-		rows := pick(deferred)
-		for _, r := range rows {
-			r[0] = none
+		rows := make([][]string, len(funded))
+		for i, c := range funded {
+			rows[i] = []string{string(c.Status), strconv.Itoa(c.Year), c.Candidate.Name(), c.Candidate.Cost.String(),
+				strconv.Itoa(c.RiskBefore), strconv.Itoa(c.RiskAfter), value(c), c.Why}
 		}
-		d.table(cols, rows, nil, smallSize)
+		d.table([]column{{"Status", 25, "L"}, {"Year", 9, "R"}, {"Asset / component", 36, "L"}, {"Cost (" + cur + ")", 17, "R"},
+			{"Risk at year start", 12, "R"}, {"After repair", 12, "R"}, {valueTitle, 14, "R"}, {"Why", 55, "L"}}, rows, nil, 7)
 	}
-	var md string
-	for _, n := range planNotes(p, noCost, cur) {
-		md += "- " + n + "\n"
+	d.heading(level, "Not funded, with the risk they still carry")
+	if len(other) == 0 {
+		d.text("Nothing is deferred.")
+		return
 	}
-	d.markdown(md)
+	rows := make([][]string, len(other))
+	for i, c := range other {
+		missing := ""
+		if c.Status == plan.StatusMandatoryUnfunded {
+			missing = c.Missing.String()
+		}
+		rows[i] = []string{string(c.Status), c.Candidate.Name(), c.Candidate.Cost.String(), strconv.Itoa(c.At),
+			strconv.Itoa(c.RiskBefore), value(c), strconv.Itoa(c.RiskEnd), missing, c.Why}
+	}
+	d.table([]column{{"Status", 25, "L"}, {"Asset / component", 32, "L"}, {"Cost (" + cur + ")", 16, "R"}, {"Numbers of year", 11, "R"},
+		{"Risk at year start", 11, "R"}, {valueTitle, 13, "R"}, {"Risk at end of plan", 12, "R"}, {"Missing (" + cur + ")", 15, "R"},
+		{"Why", 45, "L"}}, rows, nil, 7)
 }

@@ -118,6 +118,18 @@ type Item struct {
 	PreviousRate      *float64   `json:"previous_rate_mm_per_y"`
 	Latitude          *float64   `json:"latitude"`
 	Longitude         *float64   `json:"longitude"`
+	// BreachModel says what the probabilities of breach rest on; Breach is
+	// the probability of reaching the required thickness by the end of each
+	// plan year (null without a probability: single-visit estimates, no
+	// required thickness).
+	BreachModel string       `json:"breach_model"`
+	Breach      []BreachYear `json:"breach_probability"`
+}
+
+// BreachYear is the probability of reaching the required thickness by a date.
+type BreachYear struct {
+	By          string  `json:"by"`
+	Probability float64 `json:"probability"`
 }
 
 // Warning is a problem that did not stop the report.
@@ -181,6 +193,14 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 			item.PreviousMM = round(ptrTo(prev.Governing()), 4)
 			if ch.Previous != nil {
 				item.PreviousRate = round(ch.Previous.RateMMPerY, 6)
+			}
+		}
+		b := f.BreachOf(it)
+		item.BreachModel = b.Model()
+		if b.P != nil {
+			item.Breach = make([]BreachYear, len(b.P))
+			for j, p := range b.P {
+				item.Breach[j] = BreachYear{By: b.By[j].Format(dateLayout), Probability: *round(&p, 6)}
 			}
 		}
 		r.Items = append(r.Items, item)

@@ -2,6 +2,8 @@ package main
 
 import (
 	"fmt"
+	"os"
+	"path/filepath"
 
 	"github.com/spf13/cobra"
 
@@ -12,13 +14,17 @@ import (
 
 func newPlanCmd() *cobra.Command {
 	c := &cobra.Command{
-		Use:   "plan SURVEY... --budget AMOUNT [--plan-years N --budget-per-year AMOUNT]",
+		Use:   "plan SURVEY... --budget AMOUNT [--plan-years N --budget-per-year AMOUNT] [--curve]",
 		Short: "Plan repairs for a budget across one or several survey folders",
-		Long: "Chooses the repairs that remove the most risk for the money: repairs of components at or below\n" +
-			"required thickness first, then the best set within the budget (0/1 knapsack). Over several years,\n" +
-			"components are repaired before their retirement dates where the budgets allow; those that cannot\n" +
-			"be are named with the money missing. Settings (costs, currency) come from the first survey folder.",
-		Example: "  lossline plan site-2026 site-2026-tanks --budget \"60 000\" --plan-years 3 --budget-per-year 45000",
+		Long: "Chooses the repairs that remove the most risk for the money: mandatory repairs first (components at\n" +
+			"or below required thickness, then those retiring inside the plan), then the best set within the money\n" +
+			"left (0/1 knapsack). Every row shows the numbers it was decided on and a status code: funded,\n" +
+			"mandatory-funded, mandatory-unfunded (with the money missing) or deferred. A folder that is not a\n" +
+			"survey folder is searched for survey folders, each series read once by its latest folder.\n" +
+			"--curve prints the budget curve instead: the risk removed for each first-year budget.\n" +
+			"Settings (costs, currency) come from the first survey folder.",
+		Example: "  lossline plan site-2026 site-2026-tanks --budget \"60 000\" --plan-years 3 --budget-per-year 45000\n" +
+			"  lossline plan sites/ --budget 100000 --curve",
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) == 0 {
 				return usageError{fmt.Errorf("plan needs at least one survey folder")}
@@ -28,12 +34,35 @@ func newPlanCmd() *cobra.Command {
 		RunE: runPlan,
 	}
 	c.Flags().Bool("csv", false, "print CSV instead of an aligned table")
+	c.Flags().Bool("curve", false, "print the budget curve as CSV: the risk removed for each first-year budget")
 	addSettingFlags(c)
 	return c
 }
 
+// planFolders are the survey folders of plan's arguments: a survey folder
+// (or its survey.md) as given, any other folder searched for survey folders.
+func planFolders(args []string) ([]string, survey.ProblemList) {
+	var dirs []string
+	var problems survey.ProblemList
+	for _, a := range args {
+		dir := survey.FolderOf(a)
+		_, err := os.Lstat(filepath.Join(dir, survey.ChecklistFile))
+		if st, derr := os.Stat(dir); err == nil || derr != nil || !st.IsDir() {
+			dirs = append(dirs, dir) // a survey folder; or the reader says what is missing
+			continue
+		}
+		found, ps := survey.FindSurveys([]string{dir})
+		dirs, problems = append(dirs, found...), append(problems, ps...)
+	}
+	return dirs, problems
+}
+
 func runPlan(c *cobra.Command, args []string) error {
-	set, err := loadSettings(c, survey.FolderOf(args[0]))
+	dirs, problems := planFolders(args)
+	if problems.HasErrors() {
+		return survey.InputError{Problems: problems}
+	}
+	set, err := loadSettings(c, dirs[0])
 	if err != nil {
 		return err
 	}
@@ -41,16 +70,27 @@ func runPlan(c *cobra.Command, args []string) error {
 		return usageError{fmt.Errorf("give --budget AMOUNT (or budget: in the settings)")}
 	}
 	var surveys []*survey.Survey
-	for _, dir := range args {
-		s, problems := survey.LoadSeries(survey.FolderOf(dir), nil, set.Read)
+	for _, dir := range dirs {
+		s, problems := survey.LoadSeries(dir, nil, set.Read)
 		if problems.HasErrors() {
 			return survey.InputError{Problems: problems}
 		}
 		surveys = append(surveys, s)
 	}
+	if err := checkFailureCosts(surveys, set); err != nil {
+		return err
+	}
 	r := findings.PlanAcross(surveys, set.findings())
-	asCSV, _ := c.Flags().GetBool("csv")
-	out, err := report.PlanText(r.Plan, r.NoCost, set.Plan.Costs.Currency, asCSV)
+	var out []byte
+	if curve, _ := c.Flags().GetBool("curve"); curve {
+		// How the curve was computed, and what it is exact at, goes to
+		// stderr beside the CSV.
+		fmt.Fprintln(c.ErrOrStderr(), report.CurveMethod(r.Curve, set.Plan.Costs.Currency))
+		out, err = report.CurveCSV(r.Curve, set.Plan.Costs.Currency)
+	} else {
+		asCSV, _ := c.Flags().GetBool("csv")
+		out, err = report.PlanText(r, set.Plan.Costs.Currency, asCSV)
+	}
 	if err != nil {
 		return err
 	}

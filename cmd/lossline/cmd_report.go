@@ -59,6 +59,9 @@ func runReport(c *cobra.Command, args []string) error {
 	if err := report.CheckOutput(out, s); err != nil {
 		return outputError(err)
 	}
+	if err := checkFailureCosts([]*survey.Survey{s}, set); err != nil {
+		return err
+	}
 	stderr := c.ErrOrStderr()
 	for _, p := range problems {
 		fmt.Fprintln(stderr, p)

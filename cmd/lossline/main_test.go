@@ -121,8 +121,17 @@ func TestPlanCommand(t *testing.T) {
 	}
 	// CSV: plain numbers.
 	_, out, _ = runCLI(t, "plan", "../../testdata/demo", "--csv")
-	if !strings.HasPrefix(out, "year,asset / component,cost_eur") || !strings.Contains(out, ",34200,45,20,25,") {
+	if !strings.HasPrefix(out, "status,year,decided_in_year,asset / component,cost_eur,risk_at_year_start,risk_after_repair,risk_reduction,") ||
+		!strings.Contains(out, "\nmandatory-funded,1,1,\"Transfer line P-220 / Circuit P-220-A (above ground, coastal exposure)\",34200,25,5,20,60,") {
 		t.Errorf("plan --csv:\n%s", out)
+	}
+	// The budget curve: steps as CSV, the plan's budget and the knee marked,
+	// how it was computed on stderr.
+	code, out, errOut = runCLI(t, "plan", "../../testdata/demo", "--curve")
+	if code != exitOK || !strings.HasPrefix(out, "budget_eur,selection_money_eur,risk_years_removed,exact,upper_bound,mark\n") ||
+		!strings.Contains(out, "\n60000,25800,15,true,15,budget\n") || !strings.Contains(out, ",knee\n") ||
+		!strings.Contains(errOut, "exact at every budget") {
+		t.Errorf("plan --curve: exit %d\n%s%s", code, out, errOut)
 	}
 	// Several surveys in one plan; components without a repair cost are named.
 	_, out, _ = runCLI(t, "plan", "../../testdata/demo", "../../testdata/demo-2021")
@@ -275,7 +284,8 @@ func TestEndToEndDemo(t *testing.T) {
 		"testdata/demo-2022/survey.md (2022-05-10, K. Lindqvist)",
 		"Site plan", "equirectangular projection", "placed by position: nearest CML within the placement radius, 1 m",
 		"Files in the photos folder not used", "IMG_2231.HEIC", "Each year's selection is optimal",
-		"Risk", "Components by risk", "almost certain", "Repair plan", "Funded", "Deferred, with the risk they still carry",
+		"Risk", "Components by risk", "almost certain", "Repair plan", "Funded", "Not funded, with the risk they still carry", "Budget curve", "knee:",
+		"Probability of reaching the required thickness", "CMLs below 0.1 % by 2029-11-18", "single-visit estimates: no probability",
 		"Year 1 (from 2026-11-18): budget 60 000 EUR, spent 49 200.",
 	} {
 		if !strings.Contains(txt, want) {

@@ -28,7 +28,7 @@ func newRoot(stdout, stderr io.Writer) *cobra.Command {
 	root.SetOut(stdout)
 	root.SetErr(stderr)
 	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return usageError{err} })
-	root.AddCommand(newReportCmd(), newCheckCmd(), newNewCmd(), newCompareCmd(), newPlanCmd(), newPhotosCmd(), newImportCmd(), newSheetCmd())
+	root.AddCommand(newReportCmd(), newCheckCmd(), newNewCmd(), newCompareCmd(), newPlanCmd(), newPhotosCmd(), newImportCmd(), newSheetCmd(), newDueCmd())
 	root.InitDefaultHelpCmd()
 	root.InitDefaultCompletionCmd()
 	argsAreUsage(root)

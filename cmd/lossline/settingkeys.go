@@ -8,6 +8,7 @@ import (
 
 	"github.com/lossline/lossline/report"
 	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/plan"
 	"github.com/lossline/lossline/survey/wallloss"
 	"github.com/lossline/lossline/templates"
 )
@@ -30,8 +31,8 @@ type settingKey struct {
 
 // Commands that read settings.
 var (
-	allCommands = []string{"report", "check", "compare", "plan", "photos", "import", "sheet"}
-	assessing   = []string{"report", "compare", "plan", "sheet"} // commands that compute rates and dates
+	allCommands = []string{"report", "check", "compare", "plan", "photos", "import", "sheet", "due"}
+	assessing   = []string{"report", "compare", "plan", "sheet", "due"} // commands that compute rates and dates
 	planning    = []string{"report", "plan"}
 	comparing   = []string{"report", "compare", "sheet"}
 	reportOnly  = []string{"report"}
@@ -87,6 +88,19 @@ var settingKeys = []settingKey{
 		Help: "repair budget of each later plan year, `amount` in the currency (default: the first year's)",
 		Used: planning,
 		Set:  func(s *settings, v any) { s.Plan.PerYear = v.(survey.Money) }},
+	{Name: "carry-over", Kind: kindSwitch, Default: false,
+		Help: "carry money a plan year leaves unspent over to the next", Used: planning,
+		Set: func(s *settings, v any) { s.Plan.CarryOver = v.(bool) }},
+	{Name: "objective", Kind: kindText, Default: "risk",
+		Help:  "`objective` of the plan's selection: risk (the most removed), money (the most expected saving) or both (two plans side by side)",
+		Check: oneOf(plan.ObjectiveNames, true), Used: planning,
+		Set: func(s *settings, v any) { s.Plan.Objective = strings.ToLower(v.(string)) }},
+	failureCost(survey.ConsequenceVeryLow), failureCost(survey.ConsequenceLow), failureCost(survey.ConsequenceMedium),
+	failureCost(survey.ConsequenceHigh), failureCost(survey.ConsequenceVeryHigh),
+	{Name: "discount-rate-percent", Kind: kindNumber, Default: 0.0,
+		Help:  "discount rate of money a year, `percent`, for the money objective (0: none)",
+		Check: within(0, 100, "%", true), Used: planning,
+		Set: func(s *settings, v any) { s.Plan.Money.DiscountPct = v.(float64) }},
 	{Name: "max-megapixels", Kind: kindNumber, Default: float64(survey.DefaultMaxMegapixels),
 		Help:  "photos declaring more `megapixels` are skipped before decoding",
 		Check: above(0), Used: allCommands,
@@ -118,6 +132,14 @@ var settingKeys = []settingKey{
 		Help:  "`folder` whose report texts replace the built-in ones (in a settings file: relative to it)",
 		Check: isFolder, Used: reportOnly,
 		Set: func(s *settings, v any) { s.Templates = templates.Set{Override: v.(string)} }},
+}
+
+// failureCost is the setting of the failure cost of a consequence level.
+func failureCost(c survey.Consequence) settingKey {
+	return settingKey{Name: "failure-cost-" + strings.ReplaceAll(c.String(), " ", "-"), Kind: kindMoney, Default: survey.Money(0),
+		Help: "what a failure of a component of consequence " + c.String() + " costs, `amount` in the currency (money objective; 0: not given)",
+		Used: planning,
+		Set:  func(s *settings, v any) { s.Plan.Money.FailureCost[c] = v.(survey.Money) }}
 }
 
 // settingNames lists the keys a settings file may hold.

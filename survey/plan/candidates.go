@@ -104,21 +104,41 @@ func costOf(comp *survey.Component, costs Costs) (cost survey.Money, basis strin
 	return 0, "", false, fmt.Errorf("no repair cost in the checklist")
 }
 
-// RiskAt is the candidate's total risk score (Σ likelihood × consequence of
-// its CMLs) at time t, the walls having kept thinning at their rates, and the
-// score right after a repair at t.
+// RiskAt is the candidate's risk at time t, the walls having kept thinning at
+// their rates, and its risk right after a repair at t. A component's risk is
+// that of its worst CML (likelihood × consequence): a component is not made
+// riskier by having more CMLs, and duplicating a CML changes nothing.
 func (c *Candidate) RiskAt(t time.Time) (before, after int) {
+	cons := ConsequenceLevel(c.Component.Design.Consequence)
 	for _, it := range c.CMLs {
-		cons := ConsequenceLevel(c.Component.Design.Consequence)
 		r := it.Result
-		life := lifeOf(r)
-		if r.CurrentDate != nil && !math.IsNaN(life) && !math.IsInf(life, 1) {
-			life = max(life-wallloss.YearsBetween(*r.CurrentDate, t), 0)
-		}
-		before += int(LikelihoodOfLife(life)) * cons
-		after += int(LikelihoodOfLife(c.lifeAfterRepair(r))) * cons
+		before = max(before, int(LikelihoodOfLife(lifeAt(r, t)))*cons)
+		after = max(after, int(LikelihoodOfLife(c.lifeAfterRepair(r)))*cons)
 	}
 	return before, after
+}
+
+// WorstAt is the CML that sets the candidate's risk at time t: the first of
+// its CMLs (in rank order) with the highest score.
+func (c *Candidate) WorstAt(t time.Time) *survey.Assessed {
+	var worst *survey.Assessed
+	best := -1
+	for _, it := range c.CMLs {
+		if l := int(LikelihoodOfLife(lifeAt(it.Result, t))); l > best {
+			worst, best = it, l
+		}
+	}
+	return worst
+}
+
+// lifeAt is a result's remaining life left at time t (NaN unknown, +Inf no
+// measurable loss).
+func lifeAt(r wallloss.Result, t time.Time) float64 {
+	life := lifeOf(r)
+	if r.CurrentDate != nil && !math.IsNaN(life) && !math.IsInf(life, 1) {
+		life = max(life-wallloss.YearsBetween(*r.CurrentDate, t), 0)
+	}
+	return life
 }
 
 // lifeAfterRepair is the remaining life of a CML reset to ResetMM, at the rate

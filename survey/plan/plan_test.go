@@ -83,23 +83,23 @@ func TestSingleYear(t *testing.T) {
 	calm := candidate("calm", units(40), 9, 0.1, 5, survey.ConsequenceLow)          // 40 y: rare
 	// Anything at or below required comes first even if another buys more.
 	p := Single([]*Candidate{below, risky, calm}, start, units(100))
-	if got := names(p.Chosen); len(got) != 1 || got[0] != "below" {
+	if got := names(p.Funded()); len(got) != 1 || got[0] != "below" {
 		t.Errorf("chosen %v, want [below]", got)
 	}
 	// A budget that exactly fits both.
 	p = Single([]*Candidate{below, risky}, start, units(130))
-	if len(p.Chosen) != 2 || p.Spent[0] != units(130) || len(p.Deferred) != 0 {
+	if len(p.Funded()) != 2 || p.Spent[0] != units(130) || len(p.Unfunded()) != 0 {
 		t.Errorf("exact fit: %+v", p)
 	}
 	// Zero budget: nothing funded, and the plan says the repairs at or below required do not fit.
 	p = Single([]*Candidate{below, risky, calm}, start, 0)
-	if len(p.Chosen) != 0 || len(p.Deferred) != 3 || p.MandatoryOver != units(80) {
-		t.Errorf("zero budget: chosen %v, deferred %d, over %v", names(p.Chosen), len(p.Deferred), p.MandatoryOver)
+	if len(p.Funded()) != 0 || len(p.Unfunded()) != 3 || p.MandatoryOver != units(80) {
+		t.Errorf("zero budget: chosen %v, deferred %d, over %v", names(p.Funded()), len(p.Unfunded()), p.MandatoryOver)
 	}
 	// The risk a deferred repair still carries, at the end of the plan, most first:
 	// risky has 0.5 y left by then (almost certain × very high = 25), below 5 × 2 = 10.
-	if d := p.Deferred; d[0].Candidate.Component.Name != "risky" || d[0].RiskBefore != 25 || d[1].RiskBefore != 10 {
-		t.Errorf("deferred %v with risks %d, %d", names(d), d[0].RiskBefore, d[1].RiskBefore)
+	if d := p.Unfunded(); d[0].Candidate.Component.Name != "risky" || d[0].RiskEnd != 25 || d[1].RiskEnd != 10 {
+		t.Errorf("deferred %v with risks %d, %d", names(d), d[0].RiskEnd, d[1].RiskEnd)
 	}
 }
 
@@ -111,13 +111,13 @@ func TestMultiYear(t *testing.T) {
 	if len(p.Uncovered) != 1 || p.Uncovered[0].Money != units(50) {
 		t.Fatalf("uncovered %+v, want big short by 50", p.Uncovered)
 	}
-	if len(p.Chosen) != 0 || len(p.Deferred) != 1 {
-		t.Errorf("chosen %v deferred %d", names(p.Chosen), len(p.Deferred))
+	if len(p.Funded()) != 0 || len(p.Unfunded()) != 1 {
+		t.Errorf("chosen %v deferred %d", names(p.Funded()), len(p.Unfunded()))
 	}
 	// With 100 in year 2, it is placed there, before its deadline.
 	p = MultiYear([]*Candidate{big}, start, []survey.Money{units(50), units(100), units(50)})
-	if len(p.Chosen) != 1 || p.Chosen[0].Year != 2 || len(p.Uncovered) != 0 {
-		t.Errorf("chosen %+v", p.Chosen)
+	if len(p.Funded()) != 1 || p.Funded()[0].Year != 2 || len(p.Uncovered) != 0 {
+		t.Errorf("chosen %+v", p.Funded())
 	}
 	// Risk is recomputed each year: 6 years left now (unlikely), 4 at the start of year 3 (possible).
 	slow := candidate("slow", units(10), 6.2, 0.2, 5, survey.ConsequenceMedium)
@@ -139,8 +139,8 @@ func TestBudgetCoveringAllFundsAll(t *testing.T) {
 	total := units(170) + 1
 	for _, budget := range []survey.Money{total, total + 1, survey.MoneyLimit - 1} {
 		p := Single(cands, start, budget)
-		if len(p.Chosen) != 3 || len(p.Deferred) != 0 || p.Spent[0] != total {
-			t.Errorf("budget %s: chosen %v, spent %s", budget, names(p.Chosen), p.Spent[0])
+		if len(p.Funded()) != 3 || len(p.Unfunded()) != 0 || p.Spent[0] != total {
+			t.Errorf("budget %s: chosen %v, spent %s", budget, names(p.Funded()), p.Spent[0])
 		}
 		if s := p.Solutions[0]; !s.Exact || s.Method != MethodAll {
 			t.Errorf("budget %s: %+v", budget, s)
@@ -148,18 +148,18 @@ func TestBudgetCoveringAllFundsAll(t *testing.T) {
 	}
 	// One cent less: the repair that removes no risk waits; the rest is proved best.
 	p := Single(cands, start, total-1)
-	if got := names(p.Deferred); len(got) != 1 || got[0] != "calm" || !p.Solutions[0].Exact || p.Solutions[0].Method == MethodAll {
+	if got := names(p.Unfunded()); len(got) != 1 || got[0] != "calm" || !p.Solutions[0].Exact || p.Solutions[0].Method == MethodAll {
 		t.Errorf("budget a cent short: deferred %v, %+v", got, p.Solutions[0])
 	}
 	// Over several years, the first year's budget covering all funds all in year 1.
 	p = MultiYear(cands, start, []survey.Money{total, 0, 0})
-	for _, c := range p.Chosen {
+	for _, c := range p.Funded() {
 		if c.Year != 1 {
 			t.Errorf("%s in year %d", c.Candidate.Component.Name, c.Year)
 		}
 	}
-	if len(p.Chosen) != 3 {
-		t.Errorf("multi-year: chosen %v", names(p.Chosen))
+	if len(p.Funded()) != 3 {
+		t.Errorf("multi-year: chosen %v", names(p.Funded()))
 	}
 }
 
