@@ -17,6 +17,8 @@ import (
 	"github.com/yuin/goldmark/extension"
 	east "github.com/yuin/goldmark/extension/ast"
 	"github.com/yuin/goldmark/parser"
+
+	"github.com/lossline/lossline/internal/textfile"
 	"github.com/yuin/goldmark/text"
 	"github.com/yuin/goldmark/util"
 
@@ -64,7 +66,7 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 		file:   file,
 		survey: &Survey{File: file, Units: MM},
 	}
-	src, line, problem := decodeText(src)
+	src, _, line, problem := textfile.Decode(src)
 	if problem != "" {
 		r.problems.Errorf(file, line, "%s", problem)
 		if src == nil {
