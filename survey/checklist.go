@@ -17,11 +17,10 @@ import (
 	"github.com/yuin/goldmark/extension"
 	east "github.com/yuin/goldmark/extension/ast"
 	"github.com/yuin/goldmark/parser"
-
-	"github.com/lossline/lossline/internal/textfile"
 	"github.com/yuin/goldmark/text"
 	"github.com/yuin/goldmark/util"
 
+	"github.com/lossline/lossline/internal/textfile"
 	"github.com/lossline/lossline/survey/number"
 	"github.com/lossline/lossline/survey/required"
 	"github.com/lossline/lossline/survey/wallloss"
