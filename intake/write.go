@@ -6,8 +6,9 @@ import (
 	"fmt"
 	"io/fs"
 	"os"
-	"path/filepath"
 	"strconv"
+
+	"github.com/lossline/lossline/internal/folder"
 )
 
 // maxBackups is how many numbered previous versions are tried before giving up.
@@ -34,7 +35,7 @@ func WriteChecklist(path string, old, data []byte) (string, error) {
 	if err != nil {
 		return "", err
 	}
-	if err := writeAtomic(path, data, st.Mode().Perm()); err != nil {
+	if err := folder.WriteWhole(path, data, st.Mode().Perm()); err != nil {
 		os.Remove(backup)
 		return "", err
 	}
@@ -80,31 +81,4 @@ func keep(path string, old []byte, perm fs.FileMode) (string, error) {
 		return name, nil
 	}
 	return "", fmt.Errorf("cannot keep the previous version: %s.orig to .orig.%d all exist", path, maxBackups-1)
-}
-
-// writeAtomic writes data to a temporary file beside path and renames it
-// over path, so that path holds the old bytes or the new, never a part.
-func writeAtomic(path string, data []byte, perm fs.FileMode) error {
-	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp-*")
-	if err != nil {
-		return err
-	}
-	tmp := f.Name()
-	_, err = f.Write(data)
-	if err2 := f.Sync(); err == nil {
-		err = err2
-	}
-	if err2 := f.Chmod(perm); err == nil {
-		err = err2
-	}
-	if err2 := f.Close(); err == nil {
-		err = err2
-	}
-	if err == nil {
-		err = os.Rename(tmp, path)
-	}
-	if err != nil {
-		os.Remove(tmp)
-	}
-	return err
 }

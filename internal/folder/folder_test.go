@@ -52,3 +52,23 @@ func TestResolveFollowsLinksOfTheExistingPart(t *testing.T) {
 		t.Error("a link to itself: no error")
 	}
 }
+
+func TestWriteWholeReplacesAndLeavesNoTemporary(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "results.csv")
+	for _, data := range []string{"first\n", "second, longer\n"} {
+		if err := WriteWhole(path, []byte(data), 0o640); err != nil {
+			t.Fatal(err)
+		}
+		got, err := os.ReadFile(path)
+		if err != nil || string(got) != data {
+			t.Fatalf("read back %q, %v; want %q", got, err, data)
+		}
+	}
+	if st, _ := os.Stat(path); st.Mode().Perm() != 0o640 {
+		t.Errorf("mode %v, want 0640", st.Mode().Perm())
+	}
+	if entries, _ := os.ReadDir(dir); len(entries) != 1 {
+		t.Errorf("%d files in the folder, want only results.csv", len(entries))
+	}
+}
