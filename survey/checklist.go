@@ -92,6 +92,8 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 		r.block(n)
 	}
 	r.finish()
+	r.checkInstrumentNames()
+	r.checkRepairs()
 	return r.survey, r.problems
 }
 
@@ -187,9 +189,10 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 		}
 	}
 	r.seriesFrontMatter(m)
+	r.documentFrontMatter(m)
 	var unknown []string
 	for k := range m {
-		if !slices.Contains(frontMatterKeys, k) {
+		if !slices.Contains(frontMatterKeys, k) && !slices.Contains(documentKeys, k) {
 			unknown = append(unknown, k)
 		}
 	}
@@ -403,7 +406,7 @@ func (r *checklistReader) methodInputs(l *ast.List) {
 // design reads one `key: value` item of the component's design list.
 func (r *checklistReader) design(key, value string, line int) {
 	d := &r.comp.Design
-	if first, dup := d.Lines[key]; dup {
+	if first, dup := d.Lines[key]; dup && key != "repaired" {
 		r.problems.Errorf(r.file, line, "%s given twice in %q (first at line %d)", key, r.comp.Name, first)
 		return
 	}
@@ -520,6 +523,8 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 		d.RepairQuantity, d.RepairItem = q, strings.ToLower(f[1])
 		return nil
 	},
+	"instrument": readInstrumentKey,
+	"repaired":   readRepairKey,
 	"repair thickness": func(d *Design, value string, units Unit) error {
 		v, err := ParseThickness(value, units)
 		if err != nil {

@@ -38,6 +38,8 @@ type Survey struct {
 	// matter scope:); empty when it covers everything its tables list.
 	VisitScope []ScopeEntry
 	SiteLine   int // line of the site: key
+	// Document is the document control and instruments of the front matter.
+	Document Document
 }
 
 // Asset is a tank, a piping system, a bridge: a `# heading` in the checklist.
@@ -92,6 +94,9 @@ type Design struct {
 	RepairQuantity    float64
 	RepairItem        string
 	RepairThicknessMM *float64
+
+	Instrument string        // serial of the gauge used (instrument:), "" when not named
+	Repairs    []RepairEvent // repairs done between visits (repaired:), oldest first
 }
 
 // MethodInput is one `name: value` item under a `required:` method, as written.
