@@ -94,6 +94,7 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 	r.finish()
 	r.checkInstrumentNames()
 	r.checkRepairs()
+	r.checkActionCMLs()
 	return r.survey, r.problems
 }
 
@@ -362,6 +363,9 @@ func (r *checklistReader) listText(block ast.Node) {
 			return
 		}
 		r.comp.Scope = append(r.comp.Scope, ScopeItem{Text: text, Done: box.IsChecked, Line: line})
+		return
+	}
+	if r.actionLine(src, line) {
 		return
 	}
 	if r.comp != nil {

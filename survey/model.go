@@ -40,6 +40,11 @@ type Survey struct {
 	SiteLine   int // line of the site: key
 	// Document is the document control and instruments of the front matter.
 	Document Document
+	// Actions are those written in the checklist, Closures those it closes,
+	// Carried the actions of earlier surveys still open when it was made.
+	Actions  []WrittenAction
+	Closures []ActionClosure
+	Carried  []CarriedAction
 }
 
 // Asset is a tank, a piping system, a bridge: a `# heading` in the checklist.
