@@ -51,29 +51,42 @@ func (d *doc) pageMarks() {
 	p.SetXY(x, y)
 }
 
-// documentControl writes the cover's document block: number, revision,
-// client and contract, the draft notice, the sign-off table and the
-// revision history.
+// documentControl writes the cover's document block: the draft notice,
+// number, revision, client and contract, and the sign-off table.
 func (d *doc) documentControl() {
 	doc := d.s.Document
 	p := d.pdf
 	if d.draft() {
 		d.font("B", 12)
 		p.SetLineWidth(0.5)
-		p.CellFormat(0, 8, draftMark+" — not approved: no approver and approval date are given", "1", 1, "C", false, 0, "")
+		p.CellFormat(0, 7, draftMark+" — not approved: no approver and approval date are given", "1", 1, "C", false, 0, "")
 		p.SetLineWidth(0.2)
-		p.Ln(3)
+		p.Ln(2)
 	}
-	var pairs [][2]string
+	var cols []column
+	var row []string
 	for _, kv := range [][2]string{
 		{"Document number", doc.Number}, {"Revision", doc.Revision}, {"Client", doc.Client}, {"Contract or order", doc.Contract},
 	} {
 		if kv[1] != "" {
-			pairs = append(pairs, kv)
+			cols, row = append(cols, column{kv[0], 0, "L"}), append(row, kv[1])
 		}
 	}
-	if len(pairs) > 0 {
-		d.keyValues(pairs, 38)
+	if len(cols) > 0 {
+		// One row: the revision takes a narrow column, the others share the rest.
+		rest := d.width()
+		wide := len(cols)
+		for i := range cols {
+			if cols[i].title == "Revision" {
+				cols[i].width, rest, wide = 20, rest-20, wide-1
+			}
+		}
+		for i := range cols {
+			if cols[i].width == 0 {
+				cols[i].width = rest / float64(wide)
+			}
+		}
+		d.table(cols, [][]string{row}, nil, bodySize-1)
 	}
 	if len(doc.SignOff) > 0 {
 		rows := make([][]string, len(doc.SignOff))
@@ -86,15 +99,6 @@ func (d *doc) documentControl() {
 		}
 		w := d.width()
 		d.table([]column{{"Role", 26, "L"}, {"Name", 48, "L"}, {"Qualification or certificate", w - 26 - 48 - 26, "L"}, {"Date", 26, "L"}}, rows, nil, bodySize-1)
-	}
-	if len(doc.Revisions) > 0 {
-		d.font("B", bodySize)
-		p.CellFormat(0, lineH+1, "Revision history", "", 1, "L", false, 0, "")
-		rows := make([][]string, len(doc.Revisions))
-		for i, r := range doc.Revisions {
-			rows[i] = []string{r.Revision, r.Date.Format(dateLayout), r.Description}
-		}
-		d.table([]column{{"Revision", 20, "L"}, {"Date", 26, "L"}, {"Description", d.width() - 46, "L"}}, rows, nil, bodySize-1)
 	}
 }
 
@@ -188,11 +192,19 @@ func (d *doc) recordsAppendix() {
 			}
 		}
 	}
-	if len(doc.Instruments) == 0 && len(repairs) == 0 {
+	if len(doc.Instruments) == 0 && len(repairs) == 0 && len(doc.Revisions) == 0 {
 		return
 	}
 	d.need(60)
-	d.heading(1, "Instruments and repairs")
+	d.heading(1, "Document history, instruments and repairs")
+	if len(doc.Revisions) > 0 {
+		d.heading(2, "Revision history")
+		rows := make([][]string, len(doc.Revisions))
+		for i, r := range doc.Revisions {
+			rows[i] = []string{r.Revision, r.Date.Format(dateLayout), r.Description}
+		}
+		d.table([]column{{"Revision", 20, "L"}, {"Date", 26, "L"}, {"Description", d.width() - 46, "L"}}, rows, nil, bodySize-1)
+	}
 	if len(doc.Instruments) > 0 {
 		d.heading(2, "Instruments")
 		rows := make([][]string, len(doc.Instruments))
@@ -224,7 +236,7 @@ func (d *doc) recordsAppendix() {
 }
 
 // footerText is the left part of every page's footer: the draft mark, the
-// document number and revision, the title and the caution.
+// document number and revision (else the title) and the caution.
 func (d *doc) footerText() string {
 	var parts []string
 	if d.draft() {
@@ -233,6 +245,9 @@ func (d *doc) footerText() string {
 	if l := d.documentLabel(); l != "" {
 		parts = append(parts, l)
 	}
-	parts = append(parts, d.s.Title+" — screening calculations, see cautions")
+	if len(parts) == 0 || d.s.Document.Number == "" {
+		parts = append(parts, d.s.Title) // the document number stands for the title when given
+	}
+	parts = append(parts, "screening calculations, see cautions")
 	return strings.Join(parts, " — ")
 }

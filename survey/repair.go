@@ -97,6 +97,9 @@ func (r *checklistReader) checkRepairs() {
 // dated on or before latest; nil when there is none.
 func RepairOf(c *Component, m *CML, latest time.Time) *RepairEvent {
 	var out *RepairEvent
+	if c == nil {
+		return nil
+	}
 	for i, e := range c.Design.Repairs {
 		if !e.Date.Time.After(latest) && e.Covers(m) {
 			out = &c.Design.Repairs[i]
@@ -137,7 +140,8 @@ func UsedReadings(c *Component, m *CML, latest time.Time) (leftOut int, repair *
 }
 
 // RateReadings are a CML's governing readings, oldest first, that its rates
-// rest on: those from its latest repair on, when one is recorded.
+// rest on: those from its latest repair on, when one is recorded. c may be
+// nil (no repairs).
 func RateReadings(c *Component, m *CML) []wallloss.Reading {
 	rs := make([]wallloss.Reading, len(m.Visits))
 	for i, v := range m.Visits {
@@ -146,7 +150,9 @@ func RateReadings(c *Component, m *CML) []wallloss.Reading {
 	if len(rs) == 0 {
 		return rs
 	}
-	if e := RepairOf(c, m, rs[len(rs)-1].Date); e != nil {
+	// Repairs are dated no later than the survey: the latest of them counts,
+	// even when the CML was not read after it.
+	if e := RepairOf(c, m, time.Date(9999, 1, 1, 0, 0, 0, 0, time.UTC)); e != nil {
 		rs = afterRepair(rs, e)
 	}
 	return rs
