@@ -45,8 +45,8 @@ func (d *doc) actionsSection() {
 		rows[i] = []string{due, a.Priority.String(), a.ID, where(a), a.Reason, d.actionSource(a)}
 	}
 	w := d.width()
-	d.table([]column{{"Due", 21, "L"}, {"Priority", 17, "L"}, {"Id", 22, "L"}, {"Asset / component / CML", 40, "L"},
-		{"Action and reason", w - 21 - 17 - 22 - 40 - 28, "L"}, {"Raised by", 28, "L"}}, rows, func(i int) rowStyle {
+	d.table([]column{{"Due", 21, "L"}, {"Priority", 16, "L"}, {"Id", 25, "L"}, {"Asset / component / CML", 40, "L"},
+		{"Action and reason", w - 21 - 16 - 25 - 40 - 28, "L"}, {"Raised by", 28, "L"}}, rows, func(i int) rowStyle {
 		a := open[i]
 		return rowStyle{bold: a.Status == actions.Overdue || a.Priority == actions.Immediate, shade: a.Status == actions.Overdue}
 	}, smallSize)
