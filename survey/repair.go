@@ -157,3 +157,22 @@ func RateReadings(c *Component, m *CML) []wallloss.Reading {
 	}
 	return rs
 }
+
+// intervalRates are the metal-loss rates between consecutive readings of a
+// CML's rate readings (from its latest repair on, the repair's thickness
+// included); nil with fewer than two.
+func intervalRates(c *Component, m *CML) []IntervalRate {
+	if len(m.Visits) < 2 && (c == nil || len(c.Design.Repairs) == 0) {
+		return nil
+	}
+	rs := RateReadings(c, m)
+	if len(rs) < 2 {
+		return nil
+	}
+	out := make([]IntervalRate, 0, len(rs)-1)
+	for i := 1; i < len(rs); i++ {
+		a, b := rs[i-1], rs[i]
+		out = append(out, IntervalRate{Start: a.Date, End: b.Date, RateMMPerY: (a.ThicknessMM - b.ThicknessMM) / wallloss.YearsBetween(a.Date, b.Date)})
+	}
+	return out
+}
