@@ -56,8 +56,8 @@ func (d *doc) actionsSection() {
 		for i, a := range closed {
 			rows[i] = []string{a.Closed.Date.Format(dateLayout), a.ID, where(a), a.Reason, a.Closed.Note}
 		}
-		d.table([]column{{"Closed", 21, "L"}, {"Id", 22, "L"}, {"Asset / component / CML", 40, "L"},
-			{"Action", (w - 83) / 2, "L"}, {"What was done", (w - 83) / 2, "L"}}, rows, nil, smallSize)
+		d.table([]column{{"Closed", 21, "L"}, {"Id", 26, "L"}, {"Asset / component / CML", 40, "L"},
+			{"Action", (w - 87) / 2, "L"}, {"What was done", (w - 87) / 2, "L"}}, rows, nil, smallSize)
 	}
 }
 
