@@ -186,11 +186,10 @@ func isNumber(v any) bool {
 // frontEntry is one item of a front matter list of `key: value` maps, with
 // the lines it spans.
 type frontEntry struct {
-	r           *checklistReader
-	list        string
-	values      map[string]string
-	line, end   int // first line of the item and the line after it
-	unknownKeys []string
+	r         *checklistReader
+	list      string
+	values    map[string]string
+	line, end int // first line of the item and the line after it
 }
 
 // entries reads the list under key: each item a map of the given keys. An
