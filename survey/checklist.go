@@ -209,11 +209,12 @@ var yamlLine = regexp.MustCompile(`line (\d+): `)
 func (r *checklistReader) keyLine(key string) int {
 	i := 0
 	for l := range strings.Lines(r.text) {
+		top := !strings.HasPrefix(l, " ") && !strings.HasPrefix(l, "\t") // not a key of a nested entry
 		l = strings.TrimSpace(l)
 		if i > 0 && l == "---" {
 			break
 		}
-		if strings.HasPrefix(l, key) && strings.HasPrefix(l[len(key):], ":") {
+		if top && strings.HasPrefix(l, key) && strings.HasPrefix(l[len(key):], ":") {
 			return i + 1
 		}
 		i++
