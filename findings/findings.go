@@ -3,6 +3,7 @@ package findings
 import (
 	"time"
 
+	"github.com/lossline/lossline/actions"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/plan"
 	"github.com/lossline/lossline/survey/wallloss"
@@ -29,6 +30,8 @@ type Findings struct {
 	// Breach is each item's probability of reaching its required thickness
 	// by the end of each plan year, in rank order.
 	Breach []plan.Breach
+	// Actions is the register of actions, by due date (see actions.Register).
+	Actions []actions.Action
 
 	item      map[*survey.CML]int
 	risk      []plan.Risk
@@ -93,6 +96,7 @@ func Compute(s *survey.Survey, set Settings) *Findings {
 		cands, noCost := plan.Candidates(s.Title, items, set.Plan.Costs)
 		f.Repairs = repairsOf(cands, noCost, set, s.Date)
 	}
+	f.Actions = actions.Register(actions.Input{Survey: s, Items: items, Changes: f.Changes, Repairs: plannedRepairs(f.Repairs, s.Date, set.Plan.Years)})
 	return f
 }
 

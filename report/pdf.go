@@ -120,6 +120,7 @@ func (d *doc) sections() error {
 		return err
 	}
 	d.summary()
+	d.actionsSection()
 	d.changesSection()
 	d.riskSection()
 	d.planSection()
@@ -131,17 +132,19 @@ func (d *doc) sections() error {
 	if err := d.methods(); err != nil {
 		return err
 	}
+	d.recordsAppendix()
 	d.warningsAppendix()
 	return nil
 }
 
 func (d *doc) footer() {
 	p := d.pdf
+	d.pageMarks()
 	p.SetY(-12)
 	d.font("", smallSize)
 	p.SetTextColor(90, 90, 90)
 	w := d.width()
-	p.CellFormat(w*0.75, 5, d.s.Title+" — screening calculations, see cautions", "", 0, "L", false, 0, "")
+	p.CellFormat(w*0.75, 5, d.footerText(), "", 0, "L", false, 0, "")
 	p.CellFormat(w*0.25, 5, fmt.Sprintf("page %d of {nb}", p.PageNo()), "", 0, "R", false, 0, "")
 	p.SetTextColor(0, 0, 0)
 }

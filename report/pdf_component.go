@@ -84,7 +84,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		}
 		pairs = append(pairs, [2]string{"Governed by", gov})
 	}
-	d.keyValues(pairs, 40)
+	d.keyValues(append(pairs, d.componentRecords(c)...), 40)
 	if des.RequiredCalc != nil {
 		d.derivation(des.RequiredCalc)
 	}

@@ -44,7 +44,8 @@ func (d *doc) cover() {
 		p.SetXY(margin+38, y)
 		p.MultiCell(0, lineH+0.6, kv[1], "", "L", false)
 	}
-	p.Ln(6)
+	p.Ln(4)
+	d.documentControl()
 	d.headlines()
 }
 

@@ -52,7 +52,7 @@ func Render(f *findings.Findings, opts Options) ([]File, survey.ProblemList, err
 	}); err != nil {
 		return nil, nil, err
 	}
-	return []File{{PDFFile, pdf}, {JSONFile, js}, {CSVFile, csv}, {GeoJSONFile, geo}}, warnings, nil
+	return []File{{PDFFile, pdf}, {JSONFile, js}, {CSVFile, csv}, {GeoJSONFile, geo}, actionsFile(res)}, warnings, nil
 }
 
 // RenderPanic is a panic raised while rendering, caught so that the command

@@ -21,6 +21,7 @@ type Results struct {
 	Photos        []PhotoInfo    `json:"photos"`
 	Skipped       []SkippedInfo  `json:"skipped_files"`
 	Warnings      []Warning      `json:"warnings"`
+	Actions       []ActionInfo   `json:"actions"` // the register of actions, by due date
 }
 
 // PhotoInfo is one photo: when and where it was taken and where it was placed.
@@ -146,7 +147,7 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 	r := Results{
 		Survey: SurveyInfo{Title: s.Title, Site: s.Site, Date: s.Date.Format(dateLayout), Inspector: s.Inspector, Units: string(s.Units)},
 		Items:  []Item{}, Dropped: []Dropped{}, DesignChanges: []DesignChange{}, Warnings: []Warning{},
-		Photos: []PhotoInfo{}, Skipped: []SkippedInfo{},
+		Photos: []PhotoInfo{}, Skipped: []SkippedInfo{}, Actions: actionsOf(f),
 	}
 	for i, it := range f.Items {
 		res, d := it.Result, it.Component.Design

@@ -66,6 +66,9 @@ func inputFor(loc Located, visits []Visit, latest time.Time) wallloss.Input {
 	for i, v := range visits {
 		in.Readings[i] = wallloss.Reading{Date: v.Date.Time, ThicknessMM: v.Governing()}
 	}
+	if e := RepairOf(loc.Component, loc.CML, latest); e != nil {
+		in.Readings, in.Installed = afterRepair(in.Readings, e), &e.Date.Time
+	}
 	return in
 }
 

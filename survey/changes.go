@@ -98,14 +98,7 @@ func Changes(s *Survey, items []*Assessed, photos *PhotoIndex, p wallloss.Policy
 	for _, it := range items {
 		c := Change{Item: it, WindowBefore: wallloss.WindowUnknown}
 		visits := it.CML.Visits
-		if len(visits) > 1 {
-			c.Intervals = make([]IntervalRate, 0, len(visits)-1)
-		}
-		for i := 1; i < len(visits); i++ {
-			a, b := visits[i-1], visits[i]
-			c.Intervals = append(c.Intervals, IntervalRate{Start: a.Date.Time, End: b.Date.Time,
-				RateMMPerY: (a.Governing() - b.Governing()) / wallloss.YearsBetween(a.Date.Time, b.Date.Time)})
-		}
+		c.Intervals = intervalRates(it.Component, it.CML)
 		r := it.Result
 		switch {
 		case len(visits) == 0:

@@ -93,6 +93,9 @@ func ParseChecklist(file string, src []byte) (*Survey, ProblemList) {
 		r.block(n)
 	}
 	r.finish()
+	r.checkInstrumentNames()
+	r.checkRepairs()
+	r.checkActionCMLs()
 	return r.survey, r.problems
 }
 
@@ -188,9 +191,10 @@ func (r *checklistReader) frontMatter(ctx parser.Context) {
 		}
 	}
 	r.seriesFrontMatter(m)
+	r.documentFrontMatter(m)
 	var unknown []string
 	for k := range m {
-		if !slices.Contains(frontMatterKeys, k) {
+		if !slices.Contains(frontMatterKeys, k) && !slices.Contains(documentKeys, k) {
 			unknown = append(unknown, k)
 		}
 	}
@@ -206,11 +210,12 @@ var yamlLine = regexp.MustCompile(`line (\d+): `)
 func (r *checklistReader) keyLine(key string) int {
 	i := 0
 	for l := range strings.Lines(r.text) {
+		top := !strings.HasPrefix(l, " ") && !strings.HasPrefix(l, "\t") // not a key of a nested entry
 		l = strings.TrimSpace(l)
 		if i > 0 && l == "---" {
 			break
 		}
-		if strings.HasPrefix(l, key) && strings.HasPrefix(l[len(key):], ":") {
+		if top && strings.HasPrefix(l, key) && strings.HasPrefix(l[len(key):], ":") {
 			return i + 1
 		}
 		i++
@@ -362,6 +367,9 @@ func (r *checklistReader) listText(block ast.Node) {
 		r.comp.Scope = append(r.comp.Scope, ScopeItem{Text: text, Done: box.IsChecked, Line: line})
 		return
 	}
+	if r.actionLine(src, line) {
+		return
+	}
 	if r.comp != nil {
 		if m := designItem.FindStringSubmatch(src); m != nil {
 			key := strings.ToLower(strings.Join(strings.Fields(m[1]), " "))
@@ -404,7 +412,7 @@ func (r *checklistReader) methodInputs(l *ast.List) {
 // design reads one `key: value` item of the component's design list.
 func (r *checklistReader) design(key, value string, line int) {
 	d := &r.comp.Design
-	if first, dup := d.Lines[key]; dup {
+	if first, dup := d.Lines[key]; dup && key != "repaired" {
 		r.problems.Errorf(r.file, line, "%s given twice in %q (first at line %d)", key, r.comp.Name, first)
 		return
 	}
@@ -521,6 +529,8 @@ var designKeys = map[string]func(d *Design, value string, units Unit) error{
 		d.RepairQuantity, d.RepairItem = q, strings.ToLower(f[1])
 		return nil
 	},
+	"instrument": readInstrumentKey,
+	"repaired":   readRepairKey,
 	"repair thickness": func(d *Design, value string, units Unit) error {
 		v, err := ParseThickness(value, units)
 		if err != nil {

@@ -38,6 +38,13 @@ type Survey struct {
 	// matter scope:); empty when it covers everything its tables list.
 	VisitScope []ScopeEntry
 	SiteLine   int // line of the site: key
+	// Document is the document control and instruments of the front matter.
+	Document Document
+	// Actions are those written in the checklist, Closures those it closes,
+	// Carried the actions of earlier surveys still open when it was made.
+	Actions  []WrittenAction
+	Closures []ActionClosure
+	Carried  []CarriedAction
 }
 
 // Asset is a tank, a piping system, a bridge: a `# heading` in the checklist.
@@ -92,6 +99,9 @@ type Design struct {
 	RepairQuantity    float64
 	RepairItem        string
 	RepairThicknessMM *float64
+
+	Instrument string        // serial of the gauge used (instrument:), "" when not named
+	Repairs    []RepairEvent // repairs done between visits (repaired:), oldest first
 }
 
 // MethodInput is one `name: value` item under a `required:` method, as written.

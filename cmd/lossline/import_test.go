@@ -362,7 +362,7 @@ func TestImportDryRunThenWrite(t *testing.T) {
 		t.Errorf("survey.md.orig was overwritten")
 	}
 	// 1.58 against G2-03's nominal 16.0 and the component's readings: a decimal slip warned about.
-	if !strings.Contains(out, "survey.md:215: warning: CML G2-03, visit 2026-11-18: reading 1.58 is about a tenth") || !strings.Contains(out, "wrote "+filepath.Join(dir, "survey.md")) {
+	if !strings.Contains(out, "survey.md:256: warning: CML G2-03, visit 2026-11-18: reading 1.58 is about a tenth") || !strings.Contains(out, "wrote "+filepath.Join(dir, "survey.md")) {
 		t.Errorf("import output:\n%s", out)
 	}
 }
@@ -391,7 +391,7 @@ func TestImportRefusals(t *testing.T) {
 		csvFile + ":3: CML BP-02: date 2026-11-19 is after this survey's last day 2026-11-18",
 		xlsx + `:Sheet1!C3: reading "12.4.9" is not a number: two decimal points`,
 		xlsx + ":Sheet1!A4: CML T9-01 is not in " + survey + " (did you mean T1-01 or T2-01?)",
-		survey + ":38: CML T1-01, visit 2026-11-18: readings 12.05 differ from 12.06 at " + xlsx + ":Sheet1!C2",
+		survey + ":72: CML T1-01, visit 2026-11-18: readings 12.05 differ from 12.06 at " + xlsx + ":Sheet1!C2",
 	} {
 		if !strings.Contains(errOut, want+"") {
 			t.Errorf("refusal lacks\n%s\nin\n%s", want, errOut)

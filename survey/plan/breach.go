@@ -154,7 +154,7 @@ func (b Breach) Model() string {
 // of the dates by (the ends of the plan years), with its governing readings
 // and the gauge tolerance.
 func BreachOf(it *survey.Assessed, tolMM float64, by []time.Time) Breach {
-	b := Breach{Spread: SpreadOf(Readings(it.CML), tolMM), By: by}
+	b := Breach{Spread: SpreadOf(survey.RateReadings(it.Component, it.CML), tolMM), By: by}
 	r := it.Result
 	req := r.RequiredMM()
 	if r.ThicknessMM == nil || req == nil {

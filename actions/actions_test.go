@@ -1,0 +1,131 @@
+package actions
+
+import (
+	"slices"
+	"testing"
+	"time"
+
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+func day(s string) time.Time {
+	t, err := time.Parse(time.DateOnly, s)
+	if err != nil {
+		panic(err)
+	}
+	return t
+}
+
+// A survey with one CML below required, one scope item not done, one
+// written action and two carried ones (one overdue, one closed).
+func registerInput(t *testing.T) Input {
+	t.Helper()
+	src := `---
+title: Register
+site: Yard
+date: 2026-06-01
+inspector: Test
+units: mm
+---
+# Tank
+
+## Shell
+
+- nominal: 10
+- required: 5
+- action: Re-measure C2 with the paint off; due: 2026-09-01; priority: low; cml: C2
+
+| CML | 2016-06-01 | 2026-06-01 |
+|---|---|---|
+| C1 | 9.0 | 4.8 |
+| C2 | 9.8 | 9.6 |
+
+- [x] Readings
+- [ ] Magnetic-particle test at the nozzle
+`
+	s, problems := survey.ParseChecklist("survey.md", []byte(src))
+	if problems = append(problems, survey.ComputeRequired(s)...); problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	closed := &survey.ActionClosure{ID: "OLD-2", Date: day("2026-05-20"), Note: "done", Line: 3}
+	s.Carried = []survey.CarriedAction{
+		{WrittenAction: survey.WrittenAction{ID: "OLD-1", Text: "refit shoe", Due: day("2025-01-01"), Priority: "medium", Raised: day("2024-06-01")}},
+		{WrittenAction: survey.WrittenAction{ID: "OLD-2", Text: "excavate", Due: day("2024-09-01"), Priority: "high", Raised: day("2024-06-01")}, Closed: closed},
+	}
+	items := survey.Assess(s, wallloss.DefaultPolicy)
+	return Input{Survey: s, Items: items, Changes: survey.Changes(s, items, survey.IndexPhotos(s), wallloss.DefaultPolicy, 25)}
+}
+
+func TestRegisterOrderAndStatus(t *testing.T) {
+	got := Register(registerInput(t))
+	var ids []string
+	for _, a := range got {
+		ids = append(ids, a.ID)
+	}
+	// Open actions by due date, then priority; the closed one last. C1 is
+	// below required (immediate, due the survey date), so its component's
+	// inspection action is left to that; the scope item is revisited by the
+	// next inspection of C2 (10-year cap of the half-life rule with no
+	// measurable loss).
+	want := []string{"OLD-1", "REQ-C1", "", "", "OLD-2"}
+	if len(got) != len(want) {
+		t.Fatalf("register %v, want %d actions", ids, len(want))
+	}
+	for i, w := range want {
+		if w != "" && got[i].ID != w {
+			t.Errorf("action %d is %s, want %s (%v)", i, got[i].ID, w, ids)
+		}
+	}
+	if !slices.IsSortedFunc(got[:4], func(a, b Action) int { return a.Due.Compare(b.Due) }) {
+		t.Errorf("open actions not by due date: %v", ids)
+	}
+	byID := map[string]Action{}
+	for _, a := range got {
+		byID[a.ID] = a
+	}
+	if a := byID["OLD-1"]; a.Status != Overdue || !a.Carried(day("2026-06-01")) {
+		t.Errorf("OLD-1: %s, want overdue (due 2025-01-01, survey 2026-06-01)", a.Status)
+	}
+	if a := byID["OLD-2"]; a.Status != Closed || a.Closed.Note != "done" {
+		t.Errorf("OLD-2: %s, want closed", a.Status)
+	}
+	if a := byID["REQ-C1"]; a.Priority != Immediate || !a.Due.Equal(day("2026-06-01")) || a.CML != "C1" {
+		t.Errorf("REQ-C1: %+v", a)
+	}
+	w := got[2]
+	if w.Kind != Written || w.Status != Open || w.Priority != Low || w.Line != 14 {
+		t.Errorf("written action: %+v", w)
+	}
+	scope := got[3]
+	if scope.Kind != ScopeNotDone || scope.Line != 22 || !scope.Due.Equal(day("2036-06-01")) {
+		t.Errorf("scope action: %+v", scope)
+	}
+}
+
+// Same due date: the more urgent priority first, then the id.
+func TestSortSameDueByPriority(t *testing.T) {
+	d := day("2027-01-01")
+	as := []Action{{ID: "B", Due: d, Priority: Low}, {ID: "A", Due: d, Priority: Low}, {ID: "C", Due: d, Priority: High}, {ID: "D", Due: day("2026-12-31"), Priority: Low}}
+	Sort(as)
+	var got []string
+	for _, a := range as {
+		got = append(got, a.ID)
+	}
+	if !slices.Equal(got, []string{"D", "C", "A", "B"}) {
+		t.Errorf("order %v, want D C A B", got)
+	}
+}
+
+// Ids of computed actions stay the same while the names do.
+func TestComputedIDsStable(t *testing.T) {
+	a, b := Register(registerInput(t)), Register(registerInput(t))
+	for i := range a {
+		if a[i].ID != b[i].ID {
+			t.Errorf("id %s then %s", a[i].ID, b[i].ID)
+		}
+	}
+	if hash("Tank", "Shell") == hash("Tank", "Shell 2") || len(hash("x")) != 6 {
+		t.Error("hash ids collide or have the wrong length")
+	}
+}

@@ -1,0 +1,152 @@
+package survey
+
+import (
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+const actionSurvey = `---
+title: Actions
+site: Yard
+date: 2024-06-01
+inspector: Test
+units: mm
+---
+## Line A
+
+- nominal: 8
+- required: 4
+- action: Refit the pipe shoe; due: 2025-06-01; priority: medium; cml: A1
+- action: Excavate at A2; due: 2024-09-01; priority: high; id: DIG
+
+| CML | 2024-06-01 |
+|---|---|
+| A1 | 7.5 |
+| A2 | 7.0 |
+`
+
+func TestWrittenActionsRead(t *testing.T) {
+	s, problems := ParseChecklist("survey.md", []byte(actionSurvey))
+	if len(problems) != 0 {
+		t.Fatal(problems)
+	}
+	if len(s.Actions) != 2 {
+		t.Fatalf("%d actions, want 2", len(s.Actions))
+	}
+	a, b := s.Actions[0], s.Actions[1]
+	if a.Text != "Refit the pipe shoe" || a.Priority != "medium" || a.CML != "A1" || a.Component != "Line A" || a.Line != 12 ||
+		a.Due.Format("2006-01-02") != "2025-06-01" || !strings.HasPrefix(a.ID, "W-") || len(a.ID) != 8 {
+		t.Errorf("first action: %+v", a)
+	}
+	if b.ID != "DIG" {
+		t.Errorf("id: %q, want DIG", b.ID)
+	}
+	// The derived id depends on the place and the words only.
+	again, _ := ParseChecklist("survey.md", []byte(strings.Replace(actionSurvey, "date: 2024-06-01", "date: 2024-07-01", 1)))
+	if again.Actions[0].ID != a.ID {
+		t.Errorf("derived id changed with the survey date: %s, %s", a.ID, again.Actions[0].ID)
+	}
+}
+
+func TestWrittenActionProblems(t *testing.T) {
+	line := "- action: Refit the pipe shoe; due: 2025-06-01; priority: medium; cml: A1"
+	for _, c := range []struct{ name, new, want string }{
+		{"no due date", "- action: Refit; priority: medium", "survey.md:12: action: give a due date"},
+		{"bad due date", "- action: Refit; due: 1 June 2025; priority: medium", `survey.md:12: action: due "1 June 2025" is not a date`},
+		{"due before the survey", "- action: Refit; due: 2024-01-01; priority: medium", "survey.md:12: action: due 2024-01-01 is before the survey date"},
+		{"unknown priority", "- action: Refit; due: 2025-06-01; priority: urgent", `survey.md:12: action: priority "urgent" is not one of immediate, high, medium, low`},
+		{"unknown key", "- action: Refit; due: 2025-06-01; priority: low; owner: me", `survey.md:12: action: unknown key "owner"`},
+		{"unknown CML", "- action: Refit; due: 2025-06-01; priority: low; cml: A9", `survey.md:12: action: cml A9 is not a CML of "Line A"`},
+		{"id used twice", "- action: Refit; due: 2025-06-01; priority: low; id: DIG", "survey.md:13: action: id DIG is already used at line 12"},
+		{"closure without a date", "- close DIG: soon dug", `survey.md:12: close DIG: "soon" is not a date`},
+		{"closure without a note", "- close DIG: 2024-06-01", "survey.md:12: close DIG: say what was done"},
+	} {
+		src := strings.Replace(actionSurvey, line, c.new, 1)
+		_, problems := ParseChecklist("survey.md", []byte(src))
+		found := false
+		for _, p := range problems {
+			found = found || strings.HasPrefix(p.String(), c.want)
+		}
+		if !found {
+			t.Errorf("%s: want %q, got %v", c.name, c.want, problems)
+		}
+	}
+}
+
+// An action written in one survey carries into the next, which closes it
+// or leaves it open; a closure naming no open action is an error.
+func TestActionsCarryOver(t *testing.T) {
+	root := t.TempDir()
+	write := func(dir, src string) string {
+		t.Helper()
+		d := filepath.Join(root, dir)
+		if err := os.MkdirAll(d, 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(filepath.Join(d, ChecklistFile), []byte(src), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return d
+	}
+	write("2024", actionSurvey)
+	next := `---
+title: Actions
+site: Yard
+date: 2026-06-01
+inspector: Test
+units: mm
+previous: ../2024
+---
+## Line A
+
+- close DIG: 2024-08-15 excavated and measured below grade
+
+| CML | 2026-06-01 |
+|---|---|
+| A1 | 7.3 |
+| A2 | 6.8 |
+`
+	dir := write("2026", next)
+	s, problems := LoadSeries(dir, nil, DefaultOptions)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	if len(s.Carried) != 2 {
+		t.Fatalf("%d carried, want 2: %+v", len(s.Carried), s.Carried)
+	}
+	for _, c := range s.Carried {
+		switch c.ID {
+		case "DIG":
+			if c.Closed == nil || c.Closed.Note != "excavated and measured below grade" || c.Closed.Line != 11 {
+				t.Errorf("DIG: %+v", c.Closed)
+			}
+		default:
+			if c.Closed != nil || c.Text != "Refit the pipe shoe" {
+				t.Errorf("%s should stay open: %+v", c.ID, c)
+			}
+		}
+	}
+
+	// A third survey no longer carries the closed action.
+	write("2028", strings.NewReplacer("date: 2026-06-01", "date: 2028-06-01", "../2024", "../2026", "- close DIG: 2024-08-15 excavated and measured below grade\n", "", "2026-06-01", "2028-06-01").Replace(next))
+	s3, problems := LoadSeries(filepath.Join(root, "2028"), nil, DefaultOptions)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	if len(s3.Carried) != 1 || s3.Carried[0].ID == "DIG" {
+		t.Errorf("2028 carries %+v, want only the open action", s3.Carried)
+	}
+
+	bad := write("bad", strings.Replace(next, "close DIG:", "close DUG:", 1))
+	_, problems = LoadSeries(bad, nil, DefaultOptions)
+	want := filepath.Join(bad, ChecklistFile) + ":11: close DUG: no open action of an earlier survey has this id (open: "
+	found := false
+	for _, p := range problems {
+		found = found || strings.HasPrefix(p.String(), want)
+	}
+	if !found {
+		t.Errorf("want %q, got %v", want, problems)
+	}
+}
