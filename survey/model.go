@@ -92,6 +92,8 @@ type Design struct {
 	RepairQuantity    float64
 	RepairItem        string
 	RepairThicknessMM *float64
+
+	Electro *Electro // coupons, probes, CP, anodes, coating; nil when none
 }
 
 // MethodInput is one `name: value` item under a `required:` method, as written.

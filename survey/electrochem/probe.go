@@ -77,6 +77,7 @@ func SternGearyB(betaA, betaC float64) (float64, error) {
 type LPR struct {
 	RpOhmCM2     float64 // polarisation resistance × electrode area, Ω·cm²
 	BetaA, BetaC float64 // Tafel slopes, mV/decade; both 0 to use DefaultB
+	BmV          float64 // a Stern–Geary constant given directly, mV; overrides the slopes
 }
 
 // LPRRate is the corrosion current and rate of an LPR measurement.
@@ -93,7 +94,10 @@ func LPRRateOf(m LPR, a Alloy) (LPRRate, error) {
 	}
 	var r LPRRate
 	r.Source = "Stern–Geary (J. Electrochem. Soc. 104, 1957); ASTM G102-89 (R2015) §5–6"
-	if m.BetaA == 0 && m.BetaC == 0 {
+	if m.BmV > 0 {
+		r.BmV = m.BmV
+		r.step("B = %.4g mV (given)", r.BmV)
+	} else if m.BetaA == 0 && m.BetaC == 0 {
 		r.BmV = DefaultB
 		r.step("B = %.4g mV (default, no Tafel slopes given)", r.BmV)
 	} else {
