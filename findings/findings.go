@@ -91,6 +91,7 @@ func Compute(s *survey.Survey, set Settings) *Findings {
 	}
 	if set.Plan.Budget > 0 {
 		cands, noCost := plan.Candidates(s.Title, items, set.Plan.Costs)
+		cands = append(cands, plan.UpkeepCandidates(s.Title, s)...)
 		f.Repairs = repairsOf(cands, noCost, set, s.Date)
 	}
 	return f
@@ -129,6 +130,7 @@ func PlanAcross(surveys []*survey.Survey, set Settings) *Repairs {
 	var latest *survey.Survey
 	for _, s := range surveys {
 		cs, nc := plan.Candidates(s.Title, survey.Assess(s, set.Policy), set.Plan.Costs)
+		cs = append(cs, plan.UpkeepCandidates(s.Title, s)...)
 		cands, noCost = append(cands, cs...), append(noCost, nc...)
 		if latest == nil || s.Date.After(latest.Date) {
 			latest = s
