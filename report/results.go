@@ -21,6 +21,10 @@ type Results struct {
 	Photos        []PhotoInfo    `json:"photos"`
 	Skipped       []SkippedInfo  `json:"skipped_files"`
 	Warnings      []Warning      `json:"warnings"`
+	// Electro holds coupons, probes, CP test points, anodes and coatings
+	// (electro_results.go); CPFailing the test points failing at their latest visit.
+	Electro   []ElectroComponent `json:"electro"`
+	CPFailing []FailingPointJS   `json:"cp_failing_points"`
 }
 
 // PhotoInfo is one photo: when and where it was taken and where it was placed.
@@ -83,41 +87,42 @@ type SurveyInfo struct {
 
 // Item is one CML, in rank order.
 type Item struct {
-	Rank              int        `json:"rank"`
-	Asset             string     `json:"asset"`
-	Component         string     `json:"component"`
-	CML               string     `json:"cml"`
-	Location          string     `json:"location"`
-	ThicknessDate     *string    `json:"thickness_date"`
-	ThicknessMM       *float64   `json:"thickness_mm"`
-	RequiredMM        *float64   `json:"required_mm"`
-	NominalMM         *float64   `json:"nominal_mm"`
-	RateLongMMPerY    *float64   `json:"rate_long_mm_per_y"`
-	RateShortMMPerY   *float64   `json:"rate_short_mm_per_y"`
-	RateMMPerY        *float64   `json:"rate_mm_per_y"`
-	RateModel         string     `json:"rate_model"`
-	RemainingLifeY    *float64   `json:"remaining_life_y"`
-	RemainingLifeLowY *float64   `json:"remaining_life_low_y"`
-	RetirementDate    *string    `json:"retirement_date"`
-	NextInspection    *string    `json:"next_inspection"`
-	NextInspectionWhy *string    `json:"next_inspection_basis"`
-	NextExternal      *string    `json:"next_external_inspection"`
-	IntervalRule      string     `json:"interval_rule"`
-	RequiredMethod    string     `json:"required_method"`
-	Estimate          bool       `json:"estimate"`
-	Consequence       *string    `json:"consequence"`
-	Likelihood        string     `json:"likelihood"`
-	RiskScore         int        `json:"risk_score"`
-	RiskLevel         string     `json:"risk_level"`
-	Flags             []string   `json:"flags"`
-	Photos            []string   `json:"photos"`
-	Intervals         []Interval `json:"intervals"`
-	Change            []string   `json:"change"`
-	PreviousDate      *string    `json:"previous_date"`
-	PreviousMM        *float64   `json:"previous_thickness_mm"`
-	PreviousRate      *float64   `json:"previous_rate_mm_per_y"`
-	Latitude          *float64   `json:"latitude"`
-	Longitude         *float64   `json:"longitude"`
+	Rank              int            `json:"rank"`
+	Asset             string         `json:"asset"`
+	Component         string         `json:"component"`
+	CML               string         `json:"cml"`
+	Location          string         `json:"location"`
+	ThicknessDate     *string        `json:"thickness_date"`
+	ThicknessMM       *float64       `json:"thickness_mm"`
+	RequiredMM        *float64       `json:"required_mm"`
+	NominalMM         *float64       `json:"nominal_mm"`
+	RateLongMMPerY    *float64       `json:"rate_long_mm_per_y"`
+	RateShortMMPerY   *float64       `json:"rate_short_mm_per_y"`
+	RateMMPerY        *float64       `json:"rate_mm_per_y"`
+	RateModel         string         `json:"rate_model"`
+	RemainingLifeY    *float64       `json:"remaining_life_y"`
+	RemainingLifeLowY *float64       `json:"remaining_life_low_y"`
+	RetirementDate    *string        `json:"retirement_date"`
+	NextInspection    *string        `json:"next_inspection"`
+	NextInspectionWhy *string        `json:"next_inspection_basis"`
+	NextExternal      *string        `json:"next_external_inspection"`
+	IntervalRule      string         `json:"interval_rule"`
+	RequiredMethod    string         `json:"required_method"`
+	Estimate          bool           `json:"estimate"`
+	Consequence       *string        `json:"consequence"`
+	Likelihood        string         `json:"likelihood"`
+	RiskScore         int            `json:"risk_score"`
+	RiskLevel         string         `json:"risk_level"`
+	Flags             []string       `json:"flags"`
+	RateGoverning     *RateGoverning `json:"rate_governing"`
+	Photos            []string       `json:"photos"`
+	Intervals         []Interval     `json:"intervals"`
+	Change            []string       `json:"change"`
+	PreviousDate      *string        `json:"previous_date"`
+	PreviousMM        *float64       `json:"previous_thickness_mm"`
+	PreviousRate      *float64       `json:"previous_rate_mm_per_y"`
+	Latitude          *float64       `json:"latitude"`
+	Longitude         *float64       `json:"longitude"`
 	// BreachModel says what the probabilities of breach rest on; Breach is
 	// the probability of reaching the required thickness by the end of each
 	// plan year (null without a probability: single-visit estimates, no
@@ -174,6 +179,7 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 		if b := res.NextBasis.String(); b != "" {
 			item.NextInspectionWhy = &b
 		}
+		item.RateGoverning = rateGoverning(res)
 		if c := d.Consequence.String(); c != "" {
 			item.Consequence = &c
 		}
@@ -234,6 +240,7 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 	for _, w := range warnings {
 		r.Warnings = append(r.Warnings, Warning{File: w.File, Line: w.Line, Message: w.Message})
 	}
+	r.Electro, r.CPFailing = electroResults(f)
 	return r
 }
 
