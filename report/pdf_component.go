@@ -93,6 +93,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		d.results(c)
 		d.trend(c)
 	}
+	d.electro(c)
 	if len(c.Scope) > 0 {
 		d.heading(2, "Scope checklist")
 		rows := make([][]string, len(c.Scope))

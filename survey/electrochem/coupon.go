@@ -12,6 +12,9 @@ const (
 	KMPY    = 3.45e6 // mils/y
 )
 
+// CouponSource names the coupon method and its bands.
+const CouponSource = "ASTM G1-03 (R2017) §8.1.2, ASTM G31-21; bands: NACE SP0775 qualitative categories for carbon steel (table from memory)"
+
 // Coupon is one mass-loss coupon as weighed and exposed.
 type Coupon struct {
 	MassBeforeG float64 // before exposure, g
@@ -45,7 +48,7 @@ func CouponRateOf(c Coupon) (CouponRate, error) {
 		return CouponRate{}, fmt.Errorf("pit depth %g mm is negative", c.PitDepthMM)
 	}
 	r := CouponRate{MassLossG: w}
-	r.Source = "ASTM G1-03 (R2017) §8.1.2, ASTM G31-21; bands: NACE SP0775 qualitative categories for carbon steel (table from memory)"
+	r.Source = CouponSource
 	atd := c.AreaCM2 * c.Hours * c.DensityG
 	r.MMPerY = KMMPerY * w / atd
 	r.MPY = KMPY * w / atd

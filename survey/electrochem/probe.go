@@ -8,6 +8,9 @@ import (
 	"gonum.org/v1/gonum/stat"
 )
 
+// ERSource names the electrical-resistance probe method.
+const ERSource = "electrical-resistance probe: loss = span × Δreading / 1000 (generic instrument formula, common practice); rate by least squares"
+
 // ERPoint is one electrical-resistance probe reading: the time since the
 // first reading in years and the instrument's reading in divisions (0–1000
 // across the probe's span).
@@ -37,7 +40,7 @@ func ERRateOf(spanMM float64, pts []ERPoint) (ERRate, error) {
 		return ERRate{}, errors.New("an ER rate needs at least two readings")
 	}
 	var r ERRate
-	r.Source = "electrical-resistance probe: loss = span × Δreading / 1000 (generic instrument formula, common practice); rate by least squares"
+	r.Source = ERSource
 	xs := make([]float64, len(pts))
 	for i, p := range pts {
 		if p.Reading < 0 || p.Reading > 1000 {
