@@ -284,6 +284,9 @@ func ElectroCSV(r Results) ([]byte, error) {
 				if val == nil {
 					q, val = "on potential", v.OnMV
 				}
+				if val == nil {
+					continue
+				}
 				row("test point", tp.ID, v.Date, q, f(*val, 0), "mV CSE", v.Status)
 			}
 		}

@@ -84,7 +84,9 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		}
 		pairs = append(pairs, [2]string{"Governed by", gov})
 	}
-	d.keyValues(pairs, 40)
+	if len(c.CMLs) > 0 || des.Electro.Empty() { // a component of electro data only has no wall to describe
+		d.keyValues(pairs, 40)
+	}
 	if des.RequiredCalc != nil {
 		d.derivation(des.RequiredCalc)
 	}

@@ -72,13 +72,13 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 		}
 		return nil
 	},
-	"over-protection limit": func(d *Design, value string, _ Unit) error {
-		v, err := valueIn("over-protection limit", value, "mV CSE")
+	"overprotection limit": func(d *Design, value string, _ Unit) error {
+		v, err := valueIn("overprotection limit", value, "mV CSE")
 		if err != nil {
 			return err
 		}
 		if v > electrochem.PolarisedLimitMV || v < -2000 {
-			return fmt.Errorf("over-protection limit: %g mV CSE is not between −2000 and −850", v)
+			return fmt.Errorf("overprotection limit: %g mV CSE is not between −2000 and −850", v)
 		}
 		electroOf(d).OverLimitMV = &v
 		return nil

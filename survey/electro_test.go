@@ -25,6 +25,7 @@ units: mm
 - material: carbon steel
 - in contact with: 316 stainless
 - cp soil: aerobic
+- overprotection limit: -1100 mV CSE
 
 | CML | 2016-11-18 | 2026-11-18 |
 |-----|------------|------------|
@@ -100,11 +101,14 @@ func TestElectroChecklist(t *testing.T) {
 	if tp1.Trend == nil || tp1.Trend.ChangeMV != 75 || !tp1.Trend.Worsening {
 		t.Errorf("TP-1 trend %+v", tp1.Trend)
 	}
+	if e.OverLimitMV == nil || *e.OverLimitMV != -1100 {
+		t.Errorf("overprotection limit %v", e.OverLimitMV)
+	}
 	if st := tp2.Visits[0].Judgement.Status; st != electrochem.Protected {
 		t.Errorf("TP-2: %v", st)
 	}
 	fails := s.FailingTestPoints()
-	if len(fails) != 1 || fails[0].Point != "TP-1" || fails[0].Line != 35 {
+	if len(fails) != 1 || fails[0].Point != "TP-1" || fails[0].Line != 36 {
 		t.Errorf("failing points %+v", fails)
 	}
 	// DNV-RP-B401 (2017) §7: 10 kg × 0.9 × 2000 / (0.2 × 8760) = 10.274 y →
@@ -146,6 +150,7 @@ func TestElectroProblems(t *testing.T) {
 		{"material", "- material: unobtainium\n", `survey.md:9: material: material "unobtainium" is not in the galvanic series`},
 		{"utilisation", "\n| anode | material | installed kg | remaining kg | current A | utilisation |\n|-|-|-|-|-|-|\n| A1 | zinc | - | 5 | 0.1 | most |\n", "survey.md:12: anode A1: utilisation:"},
 		{"rate source without coupon", "- rate source: coupon\n", "survey.md:9: rate source coupon, but \"C\" has no coupon table"},
+		{"overprotection limit", "- overprotection limit: -500 mV CSE\n", "survey.md:9: overprotection limit: -500 mV CSE is not between"},
 		{"dft half", "- dft nominal: 200 um\n", "survey.md:9: give both dft nominal and dft readings"},
 	} {
 		_, problems := readElectro(t, head+c.body+tail)

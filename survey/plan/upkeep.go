@@ -2,6 +2,8 @@ package plan
 
 import (
 	"fmt"
+	"slices"
+	"time"
 
 	"github.com/lossline/lossline/survey"
 )
@@ -18,11 +20,17 @@ const (
 const RecoatRi = 3
 
 // UpkeepCandidates are the anode replacements and recoatings of a survey's
-// components that give their costs: anodes due when the first one is spent,
-// at anode cost × the number of anodes spent within a year of it; recoating
-// at recoat cost per m² × breakdown area, due now at Ri 3 or worse, or when
-// the galvanizing's shortest life ends.
-func UpkeepCandidates(source string, s *survey.Survey) []*Candidate {
+// components that give their costs and fall due within the plan's years from
+// start: anodes due when the first one is spent, at anode cost × the number
+// of anodes spent within a year of it; recoating at recoat cost per m² ×
+// breakdown area, due now at Ri 3 or worse, or when the galvanizing's
+// shortest life ends. Work due later is left to a later plan.
+func UpkeepCandidates(source string, s *survey.Survey, start time.Time, years int) []*Candidate {
+	return slices.DeleteFunc(upkeepAll(source, s), func(c *Candidate) bool { return c.Deadline == nil || deadlineYear(start, *c.Deadline) > years })
+}
+
+// upkeepAll is every anode replacement and recoating with a cost, due or not.
+func upkeepAll(source string, s *survey.Survey) []*Candidate {
 	var out []*Candidate
 	for _, a := range s.Assets {
 		for _, c := range a.Components {
@@ -56,7 +64,7 @@ func UpkeepCandidates(source string, s *survey.Survey) []*Candidate {
 				switch {
 				case co.RustedPct != nil && co.ISORi >= RecoatRi:
 					now := s.Date
-					cand.Deadline, cand.WorkWhy = &now, fmt.Sprintf("rust degree Ri %d (ASTM D610 grade %d) reaches Ri %d", co.ISORi, co.D610, RecoatRi)
+					cand.Deadline, cand.WorkWhy = &now, fmt.Sprintf("rust degree Ri %d (ASTM D610 grade %d) is at or past Ri %d", co.ISORi, co.D610, RecoatRi)
 				case co.GalvanizingEnd != nil:
 					end := co.GalvanizingEnd.Time
 					cand.Deadline, cand.WorkWhy = &end, fmt.Sprintf("galvanizing's shortest life ends %s", end.Format("2006-01-02"))

@@ -32,7 +32,7 @@ func TestUpkeepCandidates(t *testing.T) {
 	}
 	comp := &survey.Component{Name: "Pile P-3", Design: survey.Design{Electro: e}}
 	s := &survey.Survey{Title: "t", Date: day("2026-11-18").Time, Assets: []*survey.Asset{{Name: "Jetty", Components: []*survey.Component{comp}}}}
-	cands := UpkeepCandidates("t", s)
+	cands := UpkeepCandidates("t", s, s.Date, 5)
 	if len(cands) != 2 {
 		t.Fatalf("%d candidates", len(cands))
 	}
@@ -41,6 +41,9 @@ func TestUpkeepCandidates(t *testing.T) {
 	}
 	if c := cands[1]; c.Work != WorkRecoat || c.Cost != 84000 || c.Deadline == nil || !c.Deadline.Equal(s.Date) {
 		t.Errorf("recoat: %s %v %v", c.Work, c.Cost, c.Deadline)
+	}
+	if n := len(UpkeepCandidates("t", s, s.Date, 2)); n != 1 {
+		t.Errorf("a 2-year plan takes %d upkeep rows, want the recoating only", n)
 	}
 	set := Settings{Years: 5, Budget: 300000}
 	p := set.Make(cands, s.Date)[0]
