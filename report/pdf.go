@@ -120,6 +120,7 @@ func (d *doc) sections() error {
 		return err
 	}
 	d.summary()
+	d.electroFindings()
 	d.changesSection()
 	d.riskSection()
 	d.planSection()

@@ -3,6 +3,7 @@ package report
 import (
 	"fmt"
 	"math"
+	"path/filepath"
 	"strings"
 	"time"
 
@@ -390,7 +391,29 @@ func (d *doc) electroMethods() {
 		"Coatings: ASTM D610-08 (R2019) Table 1 and ISO 4628-3:2016 Ri by the nearest nominal rusted area on a log scale (our convention); ISO 19840:2012 dry-film acceptance (mean ≥ nominal, none below 80 % of nominal, at most 20 % of readings below nominal; roughness correction not applied); galvanizing life = zinc thickness / ISO 9223:2012 Table 2 zinc rate of the category (ISO 14713-1:2017), the upper rate giving the shorter life. Recoating is due now at Ri 3 (ISO 12944-1:2017, from memory) or when the galvanizing's shorter life ends.",
 		fmt.Sprintf("Metal pairs: galvanic series in flowing seawater (%s); a difference of the ranges' middles over %.2f V is warned about (common practice).", electrochem.GalvanicSource, electrochem.GalvanicWarnV),
 	} {
-		b.WriteString("- " + mdEscape(s) + "\n")
+		b.WriteString("- " + s + "\n") // no * or ` in these; a _ inside a word stays literal
 	}
 	d.markdown(b.String())
+}
+
+// electroFindings lists, after the summary, the test points failing their
+// criteria, rejected dry-film batches and warned metal pairs, each with its
+// checklist line; nothing when there are none.
+func (d *doc) electroFindings() {
+	fs := d.f.Electro()
+	if len(fs) == 0 {
+		return
+	}
+	d.heading(1, "Cathodic protection, coatings and metal pairs: findings")
+	rows := make([][]string, len(fs))
+	for i, e := range fs {
+		who := e.Component
+		if e.Subject != "" {
+			who += " / " + e.Subject
+		}
+		rows[i] = []string{e.Asset, who, e.Kind + ": " + strings.ToUpper(e.Status), strings.Join(e.Reasons, "; "), fmt.Sprintf("%s:%d", filepath.Base(e.File), e.Line)}
+	}
+	w := d.width()
+	d.table([]column{{"Asset", 32, "L"}, {"Component / point", 36, "L"}, {"Finding", 26, "L"}, {"Why", w - 120, "L"}, {"Line", 26, "L"}}, rows,
+		func(int) rowStyle { return rowStyle{bold: true} }, smallSize)
 }
