@@ -290,6 +290,10 @@ func TestEndToEndDemo(t *testing.T) {
 		"Risk", "Components by risk", "almost certain", "Repair plan", "Funded", "Not funded, with the risk they still carry", "Budget curve", "knee:",
 		"Probability of reaching the required thickness", "CMLs below 0.1 % by 2029-11-18", "single-visit estimates: no probability",
 		"Year 1 (from 2026-11-18): budget 60 000 EUR, spent 51 930.",
+		// electro data: coupons, probes, CP, anodes, coating, metal pair, methods
+		"Governing rate: wall, coupons and probes", "Mass-loss coupons", "Linear-polarisation probes", "Cathodic protection test points",
+		"Potentials by visit", "Sacrificial anodes", "ASTM D610 grade 5", "metal pairs: findings", "(anode replacement)", "(recoating)",
+		"Coupons, probes, cathodic protection, anodes and coatings",
 	} {
 		if !strings.Contains(txt, want) {
 			t.Errorf("PDF text lacks %q", want)

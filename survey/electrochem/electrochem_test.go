@@ -3,6 +3,8 @@ package electrochem
 import (
 	"math"
 	"testing"
+
+	"gonum.org/v1/gonum/stat"
 )
 
 func near(t *testing.T, what string, got, want, relTol float64) {
@@ -170,6 +172,9 @@ func TestERRate(t *testing.T) {
 	}
 	near(t, "total loss", r.TotalMM, 0.0762, 1e-9)
 	near(t, "rate", r.MMPerY, 0.077572, 1e-4)
+	// gonum's stat.LinearRegression on the same points.
+	_, beta := stat.LinearRegression([]float64{0, 0.25, 0.6, 1.0}, r.LossMM, nil, false)
+	near(t, "rate against gonum", r.MMPerY, beta, 1e-12)
 	if _, err := ERRateOf(0.254, []ERPoint{{0, 100}}); err == nil {
 		t.Error("one reading accepted")
 	}

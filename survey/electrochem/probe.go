@@ -4,8 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-
-	"gonum.org/v1/gonum/stat"
 )
 
 // ERSource names the electrical-resistance probe method.
@@ -52,14 +50,29 @@ func ERRateOf(spanMM float64, pts []ERPoint) (ERRate, error) {
 		xs[i] = p.Years - pts[0].Years
 		r.LossMM = append(r.LossMM, spanMM*(p.Reading-pts[0].Reading)/1000)
 	}
-	_, slope := stat.LinearRegression(xs, r.LossMM, nil, false)
-	r.MMPerY = slope
+	r.MMPerY = slope(xs, r.LossMM)
 	last := pts[len(pts)-1]
 	r.TotalMM = r.LossMM[len(r.LossMM)-1]
 	r.Consumed = last.Reading / 1000
 	r.step("loss = %.4g mm × (%.4g − %.4g) / 1000 = %.4g mm over %.3g y", spanMM, last.Reading, pts[0].Reading, r.TotalMM, xs[len(xs)-1])
 	r.step("least-squares slope over %d readings = %.4g mm/y", len(pts), r.MMPerY)
 	return r, nil
+}
+
+// slope is the ordinary least-squares slope of y on x (x not all equal).
+func slope(x, y []float64) float64 {
+	var mx, my float64
+	for i := range x {
+		mx, my = mx+x[i], my+y[i]
+	}
+	n := float64(len(x))
+	mx, my = mx/n, my/n
+	var sxy, sxx float64
+	for i := range x {
+		sxy += (x[i] - mx) * (y[i] - my)
+		sxx += (x[i] - mx) * (x[i] - mx)
+	}
+	return sxy / sxx
 }
 
 // DefaultB is the Stern–Geary constant used when no Tafel slopes are given,
