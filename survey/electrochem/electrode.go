@@ -58,5 +58,5 @@ func ParseElectrode(s string) (Electrode, error) {
 	case "she", "hydrogen":
 		return SHE, nil
 	}
-	return 0, fmt.Errorf("reference electrode %q is not CSE, SCE, Ag/AgCl seawater, Ag/AgCl KCl Zn or SHE", s)
+	return 0, fmt.Errorf("reference electrode %q is not CSE, SCE, Ag/AgCl seawater, Ag/AgCl KCl, Zn or SHE", s)
 }
