@@ -69,6 +69,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		pairs = append(pairs, [2]string{"Corrosivity", fmt.Sprintf("%s (ISO 9223): first-year rate of %s up to %g µm/a, ISO 9224 exponent b = %g (single-visit estimate)",
 			des.Corrosivity, metal, des.Corrosivity.FirstYearRateUM(metal), wallloss.ISO9224ExponentB(metal))})
 	}
+	pairs = append(pairs, d.rateSourcePair(c)...)
 	if g := d.f.Governing(c); g != nil {
 		r := g.Result
 		gov := fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",

@@ -22,7 +22,7 @@ func (d *doc) electro(c *survey.Component) {
 	d.governingRates(c)
 	stepsOf := func(w electrochem.Working) string { return strings.Join(w.Steps, "\n") }
 	if len(e.Coupons) > 0 {
-		d.heading(2, "Mass-loss coupons")
+		d.section("Mass-loss coupons")
 		var rows [][]string
 		for _, cp := range e.Coupons {
 			if cp.Rate == nil {
@@ -40,7 +40,7 @@ func (d *doc) electro(c *survey.Component) {
 		d.source(electrochem.CouponSource)
 	}
 	if len(e.ERProbes) > 0 {
-		d.heading(2, "Electrical-resistance probes")
+		d.section("Electrical-resistance probes")
 		var rows [][]string
 		for _, p := range e.ERProbes {
 			if p.Rate == nil {
@@ -57,7 +57,7 @@ func (d *doc) electro(c *survey.Component) {
 		d.source(electrochem.ERSource)
 	}
 	if len(e.LPRProbes) > 0 {
-		d.heading(2, "Linear-polarisation probes")
+		d.section("Linear-polarisation probes")
 		var rows [][]string
 		var src *electrochem.Working
 		for _, p := range e.LPRProbes {
@@ -76,7 +76,7 @@ func (d *doc) electro(c *survey.Component) {
 		d.testPoints(e)
 	}
 	if len(e.Anodes) > 0 {
-		d.heading(2, "Sacrificial anodes")
+		d.section("Sacrificial anodes")
 		var rows [][]string
 		var src *electrochem.Working
 		for _, an := range e.Anodes {
@@ -100,7 +100,7 @@ func (d *doc) electro(c *survey.Component) {
 	}
 	d.coating(c)
 	if g := e.Galvanic; g != nil {
-		d.heading(2, "Metal pair")
+		d.section("Metal pair")
 		verdict := "within the 0.25 V limit (common practice)"
 		if g.Warn {
 			verdict = fmt.Sprintf("WARNING: more than 0.25 V apart (common practice): the %s corrodes faster where the two touch in an electrolyte; isolate the pair or protect the anode side", g.Anode.Name)
@@ -138,7 +138,7 @@ func (d *doc) governingRates(c *survey.Component) {
 	if len(rows) == 0 {
 		return
 	}
-	d.heading(2, "Governing rate: wall, coupons and probes")
+	d.section("Governing rate: wall, coupons and probes")
 	ru := d.u.rateUnit
 	d.table([]column{{"CML", 16, "L"}, {"Wall rate (" + ru + ")", 22, "R"}, {"Governs", 26, "L"}, {"Rate used (" + ru + ")", 22, "R"},
 		{"Why", d.width() - 114, "L"}, {"Check", 28, "L"}}, rows, func(i int) rowStyle { return rowStyle{bold: rows[i][5] != ""} }, smallSize)
@@ -167,7 +167,7 @@ func (d *doc) note(s string) {
 
 // testPoints writes the test points' potentials, judgements and chart.
 func (d *doc) testPoints(e *survey.Electro) {
-	d.heading(2, "Cathodic protection test points")
+	d.section("Cathodic protection test points")
 	mv := func(v *float64) string {
 		if v == nil {
 			return none
@@ -360,7 +360,7 @@ func (d *doc) coating(c *survey.Component) {
 		pairs = append(pairs, [2]string{"Breakdown to recoat", s})
 	}
 	if len(pairs) > 0 {
-		d.heading(2, "Coating")
+		d.section("Coating")
 		d.keyValues(pairs, 40)
 	}
 }
@@ -416,4 +416,32 @@ func (d *doc) electroFindings() {
 	w := d.width()
 	d.table([]column{{"Asset", 32, "L"}, {"Component / point", 36, "L"}, {"Finding", 26, "L"}, {"Why", w - 120, "L"}, {"Line", 26, "L"}}, rows,
 		func(int) rowStyle { return rowStyle{bold: true} }, smallSize)
+}
+
+// rateSourcePair is the component header's rate-source row, when the
+// component has coupon or probe rates.
+func (d *doc) rateSourcePair(c *survey.Component) [][2]string {
+	e := c.Design.Electro
+	if e == nil || len(e.OtherRates()) == 0 || len(c.CMLs) == 0 {
+		return nil
+	}
+	src, how := string(e.RateSource), " (set for this component)"
+	if src == "" {
+		src, how = "max", " (default)"
+	}
+	what := map[string]string{
+		"max":    "the largest of the wall, coupon and probe rates governs each CML",
+		"wall":   "the wall rate governs; coupon and probe rates are reported",
+		"coupon": "the largest coupon rate governs",
+		"probe":  "the largest probe rate governs",
+	}[src]
+	return [][2]string{{"Rate source", src + how + ": " + what + " (see Governing rate below)"}}
+}
+
+// section starts a sub-section of a component with room for its heading,
+// a table header and a first row of several lines, so that no heading or
+// header is left alone at the foot of a page.
+func (d *doc) section(title string) {
+	d.need(48)
+	d.heading(2, title)
 }
