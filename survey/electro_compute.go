@@ -45,6 +45,9 @@ func (e *Electro) compute(c *Component, today time.Time, problems *ProblemList) 
 			continue
 		}
 		p.Rate = &r
+		if r.MMPerY < 0 {
+			problems.Warnf(file, p.Line, "ER probe %s: the readings fall over time (%.4g mm/y): was the element replaced? Its rate is taken as 0", p.ID, r.MMPerY)
+		}
 	}
 	for _, p := range e.LPRProbes {
 		alloy, _ := electrochem.FindAlloy(p.Metal) // checked when read

@@ -151,6 +151,7 @@ func TestElectroProblems(t *testing.T) {
 		{"utilisation", "\n| anode | material | installed kg | remaining kg | current A | utilisation |\n|-|-|-|-|-|-|\n| A1 | zinc | - | 5 | 0.1 | most |\n", "survey.md:12: anode A1: utilisation:"},
 		{"rate source without coupon", "- rate source: coupon\n", "survey.md:9: rate source coupon, but \"C\" has no coupon table"},
 		{"overprotection limit", "- overprotection limit: -500 mV CSE\n", "survey.md:9: overprotection limit: -500 mV CSE is not between"},
+		{"ER falling", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 0.254 | 400 | 100 |\n", "survey.md:12: warning: ER probe ER-1: the readings fall over time"},
 		{"dft half", "- dft nominal: 200 um\n", "survey.md:9: give both dft nominal and dft readings"},
 	} {
 		_, problems := readElectro(t, head+c.body+tail)
