@@ -87,48 +87,50 @@ type SurveyInfo struct {
 
 // Item is one CML, in rank order.
 type Item struct {
-	Rank              int            `json:"rank"`
-	Asset             string         `json:"asset"`
-	Component         string         `json:"component"`
-	CML               string         `json:"cml"`
-	Location          string         `json:"location"`
-	ThicknessDate     *string        `json:"thickness_date"`
-	ThicknessMM       *float64       `json:"thickness_mm"`
-	RequiredMM        *float64       `json:"required_mm"`
-	NominalMM         *float64       `json:"nominal_mm"`
-	RateLongMMPerY    *float64       `json:"rate_long_mm_per_y"`
-	RateShortMMPerY   *float64       `json:"rate_short_mm_per_y"`
-	RateMMPerY        *float64       `json:"rate_mm_per_y"`
-	RateModel         string         `json:"rate_model"`
-	RemainingLifeY    *float64       `json:"remaining_life_y"`
-	RemainingLifeLowY *float64       `json:"remaining_life_low_y"`
-	RetirementDate    *string        `json:"retirement_date"`
-	NextInspection    *string        `json:"next_inspection"`
-	NextInspectionWhy *string        `json:"next_inspection_basis"`
-	NextExternal      *string        `json:"next_external_inspection"`
-	IntervalRule      string         `json:"interval_rule"`
-	RequiredMethod    string         `json:"required_method"`
-	Estimate          bool           `json:"estimate"`
-	Consequence       *string        `json:"consequence"`
-	Likelihood        string         `json:"likelihood"`
-	RiskScore         int            `json:"risk_score"`
-	RiskLevel         string         `json:"risk_level"`
-	Flags             []string       `json:"flags"`
-	RateGoverning     *RateGoverning `json:"rate_governing"`
-	Photos            []string       `json:"photos"`
-	Intervals         []Interval     `json:"intervals"`
-	Change            []string       `json:"change"`
-	PreviousDate      *string        `json:"previous_date"`
-	PreviousMM        *float64       `json:"previous_thickness_mm"`
-	PreviousRate      *float64       `json:"previous_rate_mm_per_y"`
-	Latitude          *float64       `json:"latitude"`
-	Longitude         *float64       `json:"longitude"`
+	Rank              int        `json:"rank"`
+	Asset             string     `json:"asset"`
+	Component         string     `json:"component"`
+	CML               string     `json:"cml"`
+	Location          string     `json:"location"`
+	ThicknessDate     *string    `json:"thickness_date"`
+	ThicknessMM       *float64   `json:"thickness_mm"`
+	RequiredMM        *float64   `json:"required_mm"`
+	NominalMM         *float64   `json:"nominal_mm"`
+	RateLongMMPerY    *float64   `json:"rate_long_mm_per_y"`
+	RateShortMMPerY   *float64   `json:"rate_short_mm_per_y"`
+	RateMMPerY        *float64   `json:"rate_mm_per_y"`
+	RateModel         string     `json:"rate_model"`
+	RemainingLifeY    *float64   `json:"remaining_life_y"`
+	RemainingLifeLowY *float64   `json:"remaining_life_low_y"`
+	RetirementDate    *string    `json:"retirement_date"`
+	NextInspection    *string    `json:"next_inspection"`
+	NextInspectionWhy *string    `json:"next_inspection_basis"`
+	NextExternal      *string    `json:"next_external_inspection"`
+	IntervalRule      string     `json:"interval_rule"`
+	RequiredMethod    string     `json:"required_method"`
+	Estimate          bool       `json:"estimate"`
+	Consequence       *string    `json:"consequence"`
+	Likelihood        string     `json:"likelihood"`
+	RiskScore         int        `json:"risk_score"`
+	RiskLevel         string     `json:"risk_level"`
+	Flags             []string   `json:"flags"`
+	Photos            []string   `json:"photos"`
+	Intervals         []Interval `json:"intervals"`
+	Change            []string   `json:"change"`
+	PreviousDate      *string    `json:"previous_date"`
+	PreviousMM        *float64   `json:"previous_thickness_mm"`
+	PreviousRate      *float64   `json:"previous_rate_mm_per_y"`
+	Latitude          *float64   `json:"latitude"`
+	Longitude         *float64   `json:"longitude"`
 	// BreachModel says what the probabilities of breach rest on; Breach is
 	// the probability of reaching the required thickness by the end of each
 	// plan year (null without a probability: single-visit estimates, no
 	// required thickness).
 	BreachModel string       `json:"breach_model"`
 	Breach      []BreachYear `json:"breach_probability"`
+	// RateGoverning: which of wall, coupon and probe rate governs, and why
+	// (electro_results.go); null without coupons or probes.
+	RateGoverning *RateGoverning `json:"rate_governing"`
 }
 
 // BreachYear is the probability of reaching the required thickness by a date.
