@@ -94,6 +94,7 @@ func Compute(s *survey.Survey, set Settings) *Findings {
 	}
 	if set.Plan.Budget > 0 {
 		cands, noCost := plan.Candidates(s.Title, items, set.Plan.Costs)
+		cands = append(cands, plan.UpkeepCandidates(s.Title, s, s.Date, set.Plan.Years)...)
 		f.Repairs = repairsOf(cands, noCost, set, s.Date)
 	}
 	f.Actions = actions.Register(actions.Input{Survey: s, Items: items, Changes: f.Changes, Repairs: plannedRepairs(f.Repairs, s.Date, set.Plan.Years)})
@@ -132,11 +133,14 @@ func PlanAcross(surveys []*survey.Survey, set Settings) *Repairs {
 	var noCost []plan.NoCost
 	var latest *survey.Survey
 	for _, s := range surveys {
-		cs, nc := plan.Candidates(s.Title, survey.Assess(s, set.Policy), set.Plan.Costs)
-		cands, noCost = append(cands, cs...), append(noCost, nc...)
 		if latest == nil || s.Date.After(latest.Date) {
 			latest = s
 		}
+	}
+	for _, s := range surveys {
+		cs, nc := plan.Candidates(s.Title, survey.Assess(s, set.Policy), set.Plan.Costs)
+		cs = append(cs, plan.UpkeepCandidates(s.Title, s, latest.Date, set.Plan.Years)...)
+		cands, noCost = append(cands, cs...), append(noCost, nc...)
 	}
 	return repairsOf(cands, noCost, set, latest.Date)
 }

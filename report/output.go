@@ -20,7 +20,7 @@ type File struct {
 }
 
 // Outputs are the names of the files Render writes.
-var Outputs = []string{PDFFile, JSONFile, CSVFile, GeoJSONFile, ActionsCSVFile}
+var Outputs = []string{PDFFile, JSONFile, CSVFile, GeoJSONFile, ActionsCSVFile, ElectroCSVFile}
 
 // MarkerFile marks a folder as one lossline wrote, and lists its files.
 const MarkerFile = ".lossline-report"

@@ -121,6 +121,7 @@ func (d *doc) sections() error {
 	}
 	d.summary()
 	d.actionsSection()
+	d.electroFindings()
 	d.changesSection()
 	d.riskSection()
 	d.planSection()

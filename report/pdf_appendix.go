@@ -24,6 +24,7 @@ func (d *doc) methods() error {
 	d.newPage(false)
 	d.heading(0, "Appendix B — Methods")
 	d.markdown(text)
+	d.electroMethods()
 	d.heading(1, "Settings used for this report")
 	tmpl := "built in"
 	if d.opts.Templates.Override != "" {

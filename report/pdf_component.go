@@ -69,6 +69,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		pairs = append(pairs, [2]string{"Corrosivity", fmt.Sprintf("%s (ISO 9223): first-year rate of %s up to %g µm/a, ISO 9224 exponent b = %g (single-visit estimate)",
 			des.Corrosivity, metal, des.Corrosivity.FirstYearRateUM(metal), wallloss.ISO9224ExponentB(metal))})
 	}
+	pairs = append(pairs, d.rateSourcePair(c)...)
 	if g := d.f.Governing(c); g != nil {
 		r := g.Result
 		gov := fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",
@@ -84,7 +85,9 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		}
 		pairs = append(pairs, [2]string{"Governed by", gov})
 	}
-	d.keyValues(append(pairs, d.componentRecords(c)...), 40)
+	if len(c.CMLs) > 0 || des.Electro.Empty() { // a component of electro data only has no wall to describe
+		d.keyValues(append(pairs, d.componentRecords(c)...), 40)
+	}
 	if des.RequiredCalc != nil {
 		d.derivation(des.RequiredCalc)
 	}
@@ -93,6 +96,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		d.results(c)
 		d.trend(c)
 	}
+	d.electro(c)
 	if len(c.Scope) > 0 {
 		d.heading(2, "Scope checklist")
 		rows := make([][]string, len(c.Scope))

@@ -52,7 +52,14 @@ func Render(f *findings.Findings, opts Options) ([]File, survey.ProblemList, err
 	}); err != nil {
 		return nil, nil, err
 	}
-	return []File{{PDFFile, pdf}, {JSONFile, js}, {CSVFile, csv}, {GeoJSONFile, geo}, actionsFile(res)}, warnings, nil
+	var electro []byte
+	if err := stage(ElectroCSVFile, func() (err error) {
+		electro, err = ElectroCSV(res)
+		return err
+	}); err != nil {
+		return nil, nil, err
+	}
+	return []File{{PDFFile, pdf}, {JSONFile, js}, {CSVFile, csv}, {GeoJSONFile, geo}, actionsFile(res), {ElectroCSVFile, electro}}, warnings, nil
 }
 
 // RenderPanic is a panic raised while rendering, caught so that the command

@@ -22,6 +22,10 @@ type Results struct {
 	Skipped       []SkippedInfo  `json:"skipped_files"`
 	Warnings      []Warning      `json:"warnings"`
 	Actions       []ActionInfo   `json:"actions"` // the register of actions, by due date
+	// Electro holds coupons, probes, CP test points, anodes and coatings
+	// (electro_results.go); CPFailing the test points failing at their latest visit.
+	Electro   []ElectroComponent `json:"electro"`
+	CPFailing []FailingPointJS   `json:"cp_failing_points"`
 }
 
 // PhotoInfo is one photo: when and where it was taken and where it was placed.
@@ -125,6 +129,9 @@ type Item struct {
 	// required thickness).
 	BreachModel string       `json:"breach_model"`
 	Breach      []BreachYear `json:"breach_probability"`
+	// RateGoverning: which of wall, coupon and probe rate governs, and why
+	// (electro_results.go); null without coupons or probes.
+	RateGoverning *RateGoverning `json:"rate_governing"`
 }
 
 // BreachYear is the probability of reaching the required thickness by a date.
@@ -175,6 +182,7 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 		if b := res.NextBasis.String(); b != "" {
 			item.NextInspectionWhy = &b
 		}
+		item.RateGoverning = rateGoverning(res)
 		if c := d.Consequence.String(); c != "" {
 			item.Consequence = &c
 		}
@@ -235,6 +243,7 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 	for _, w := range warnings {
 		r.Warnings = append(r.Warnings, Warning{File: w.File, Line: w.Line, Message: w.Message})
 	}
+	r.Electro, r.CPFailing = electroResults(f)
 	return r
 }
 

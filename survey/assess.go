@@ -62,6 +62,9 @@ func inputFor(loc Located, visits []Visit, latest time.Time) wallloss.Input {
 	if d.Installed != nil {
 		in.Installed = &d.Installed.Time
 	}
+	if d.Electro != nil {
+		in.OtherRates, in.RateSource = d.Electro.OtherRates(), d.Electro.RateSource
+	}
 	in.Readings = make([]wallloss.Reading, len(visits))
 	for i, v := range visits {
 		in.Readings[i] = wallloss.Reading{Date: v.Date.Time, ThicknessMM: v.Governing()}

@@ -38,7 +38,7 @@ func requiredWarnings(s *Survey) ProblemList {
 	var problems ProblemList
 	for _, a := range s.Assets {
 		for _, c := range a.Components {
-			if c.Design.RequiredMM == nil {
+			if c.Design.RequiredMM == nil && (len(c.CMLs) > 0 || c.Design.Electro.Empty()) {
 				problems.Warnf(c.File, c.Line, "%q has no required thickness: no remaining life can be computed", c.Name)
 			}
 		}

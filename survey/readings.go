@@ -42,6 +42,9 @@ func (r *checklistReader) table(t *tableBlock) {
 	for len(names) < t.columns {
 		names = append(names, "") // goldmark fills a short header
 	}
+	if r.electroTable(t, names, headerLine) {
+		return
+	}
 	cols := r.columns(names, headerLine)
 	if cols == nil {
 		return
@@ -325,7 +328,7 @@ func (r *checklistReader) finish() {
 	}
 	for _, a := range r.survey.Assets {
 		for _, c := range a.Components {
-			if len(c.CMLs) == 0 {
+			if len(c.CMLs) == 0 && c.Design.Electro.Empty() {
 				r.problems.Warnf(r.file, c.Line, "%q has no reading table", c.Name)
 			}
 		}

@@ -432,7 +432,7 @@ func TestImportColumnMap(t *testing.T) {
 func TestSheetCommand(t *testing.T) {
 	out := filepath.Join(t.TempDir(), "sheet.pdf")
 	code, stdout, errOut := runCLI(t, "sheet", "../../testdata/demo", "-o", out, "--today", "2027-03-01")
-	if code != exitOK || !strings.Contains(stdout, "28 CMLs, thicknesses projected to 2027-03-01") {
+	if code != exitOK || !strings.Contains(stdout, "30 CMLs, thicknesses projected to 2027-03-01") {
 		t.Fatalf("sheet: exit %d\n%s%s", code, stdout, errOut)
 	}
 	if code, _, errOut := runCLI(t, "sheet", "../../testdata/demo", "-o", filepath.Join(t.TempDir(), "sheet.md")); code != exitUsage || !strings.Contains(errOut, "written as .pdf, .xlsx or .csv") {

@@ -28,10 +28,18 @@ type Candidate struct {
 	Deadline  *time.Time
 	Mandatory bool // a CML is at or below required now
 	CMLs      []*survey.Assessed
+	// Work is "" for a wall repair, else WorkAnodes or WorkRecoat, with
+	// WorkWhy saying what makes it due (upkeep.go).
+	Work, WorkWhy string
 }
 
 // Name is "asset / component".
-func (c *Candidate) Name() string { return c.Asset + " / " + c.Component.Name }
+func (c *Candidate) Name() string {
+	if c.Work != "" {
+		return c.Asset + " / " + c.Component.Name + " (" + c.Work + ")"
+	}
+	return c.Asset + " / " + c.Component.Name
+}
 
 // NoCost is a component that cannot be planned: the checklist gives no repair cost.
 type NoCost struct {

@@ -74,6 +74,9 @@ func whyOf(p Plan, r Choice, s *scheduler) string {
 
 // mandatoryReason names the CML that makes a repair mandatory.
 func mandatoryReason(c *Candidate, v valuation) string {
+	if c.Work != "" {
+		return upkeepReason(c, v)
+	}
 	if c.Mandatory {
 		for _, it := range c.CMLs {
 			r := it.Result

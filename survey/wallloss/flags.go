@@ -18,11 +18,13 @@ const (
 	FlagAboveNominal      Flag = "above-nominal"
 	FlagEstimate          Flag = "estimate"
 	FlagFitNeedsThree     Flag = "fit-needs-3-visits"
+	FlagRatesDisagree     Flag = "rates-disagree"
 )
 
 // AllFlags lists every flag in the order the methods appendix explains them.
 var AllFlags = []Flag{FlagBelowRequired, FlagThicknessIncrease, FlagSingleVisit, FlagNominalBased, FlagNoRate, FlagNoRequired,
-	FlagNoReadings, FlagNotMeasuredLatest, FlagOutOfScope, FlagNoMeasurableLoss, FlagAboveNominal, FlagEstimate, FlagFitNeedsThree}
+	FlagNoReadings, FlagNotMeasuredLatest, FlagOutOfScope, FlagNoMeasurableLoss, FlagAboveNominal, FlagEstimate, FlagFitNeedsThree,
+	FlagRatesDisagree}
 
 var flagMeanings = map[Flag]string{
 	FlagBelowRequired:     "the current thickness is at or below the required thickness; remaining life 0.",
@@ -38,6 +40,7 @@ var flagMeanings = map[Flag]string{
 	FlagAboveNominal:      "a reading is more than the gauge tolerance above nominal: suspect (coating, calibration, location).",
 	FlagEstimate:          "the rate is a single-visit estimate (nominal-based, assumed or ISO 9224), not a measured rate.",
 	FlagFitNeedsThree:     "the fit model needs three or more visits; the larger of long- and short-term rate was used.",
+	FlagRatesDisagree:     "the wall rate and a coupon or probe rate on the component differ by more than a factor of 3 (and by more than 0.025 mm/y): check the coupon's or probe's place and the readings.",
 }
 
 // Describe says what the flag means.

@@ -55,6 +55,10 @@ func (m RateModel) Describe() string {
 		return "long-term rate from nominal thickness at the installed date (single-visit estimate)"
 	case ModelAssumed:
 		return "a rate written by the engineer (single-visit estimate)"
+	case ModelCoupon:
+		return "the largest mass-loss coupon rate on the component (ASTM G1 / G31)"
+	case ModelProbe:
+		return "the largest electrical-resistance or linear-polarisation probe rate on the component"
 	case ModelISO9224:
 		return "ISO 9223 first-year rate of the corrosivity category with the ISO 9224 long-term model (single-visit estimate)"
 	}

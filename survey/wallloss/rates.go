@@ -25,6 +25,9 @@ type Input struct {
 	AssumedRateMMPerY *float64      // single-visit estimate written by the engineer
 	Corrosivity       Corrosivity   // single-visit estimate for atmospheric exposure
 	Metal             string        // of the atmospheric estimate: carbon steel (default) or zinc
+
+	OtherRates []OtherRate // coupon and probe rates of the component
+	RateSource RateSource  // which of wall, coupon and probe governs; "" for max
 }
 
 // Policy holds the settings the computation follows.
@@ -76,6 +79,12 @@ type Result struct {
 	Class             LifeClass
 	requiredMM        *float64
 	Flags             []Flag
+
+	// With coupon or probe rates: the wall's own rate, what governs
+	// ("" for the wall, else "coupon C-1") and why.
+	WallRateMMPerY *float64
+	RateFrom       string
+	RateWhy        string
 }
 
 // PlanningLifeY is the remaining life dates and ranking use: the lower bound
@@ -130,6 +139,7 @@ func Assess(in Input, p Policy) Result {
 	} else {
 		measurable = r.estimatedRate(in, cur, p.ToleranceMM)
 	}
+	measurable = r.otherRates(in, measurable)
 	if r.RateMMPerY != nil && !measurable {
 		r.RateMMPerY = ptr(0.0)
 		r.flag(FlagNoMeasurableLoss)

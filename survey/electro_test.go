@@ -1,0 +1,183 @@
+package survey
+
+import (
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/lossline/lossline/survey/electrochem"
+	"github.com/lossline/lossline/survey/wallloss"
+)
+
+const electroChecklist = `---
+title: x
+date: 2026-11-18
+units: mm
+---
+# Jetty
+
+## Pile P-3
+
+- nominal: 10
+- required: 5
+- material: carbon steel
+- in contact with: 316 stainless
+- cp soil: aerobic
+- overprotection limit: -1100 mV CSE
+
+| CML | 2016-11-18 | 2026-11-18 |
+|-----|------------|------------|
+| P3-1 | 10.0 | 9.9 |
+
+| coupon | metal | installed | removed | mass before (g) | mass after (g) | area (cm²) | deepest pit (mm) |
+|---|---|---|---|---|---|---|---|
+| C-1 | carbon steel | 2026-05-21 | 2026-11-18 | 12.400 | 12.050 | 28.5 | - |
+
+| ER probe | span (mm) | 2025-11-20 | 2026-05-20 | 2026-11-18 |
+|---|---|---|---|---|
+| ER-1 | 0.254 | 120 | 190 | 265 |
+
+| LPR probe | metal | B (mV) | 2026-11-18 |
+|---|---|---|---|
+| LPR-1 | carbon steel | 26 | 2600 |
+
+| test point | date | electrode | on (mV) | off (mV) | native (mV) |
+|---|---|---|---|---|---|
+| TP-1 | 2025-11-20 | CSE | -1010 | -905 | -640 |
+| TP-1 | 2026-11-18 | CSE | -960 | -830 | -760 |
+| TP-2 | 2026-11-18 | Ag/AgCl seawater | -1000 | -880 | - |
+
+| anode | material | installed (kg) | remaining (kg) | current (A) | utilisation |
+|---|---|---|---|---|---|
+| A-1 | aluminium | - | 10 | 0.2 | 0.9 |
+
+## Girder G-2
+
+- rusted area: 0.5 %
+- breakdown area: 6 m2
+- dft nominal: 200 µm
+- dft readings: 180 185 220 230 210 215 225 205 210 220
+- zinc thickness: 85 µm
+- corrosivity: C4
+- recoat cost: 140 per m2
+`
+
+func readElectro(t *testing.T, src string) (*Survey, ProblemList) {
+	t.Helper()
+	s, problems := readChecklist("survey.md", []byte(src))
+	return s, append(problems, ComputeElectro(s)...)
+}
+
+// The electro tables and keys read and computed, each value checked against
+// its published method worked by hand (python3).
+func TestElectroChecklist(t *testing.T) {
+	s, problems := readElectro(t, electroChecklist)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	e := s.Assets[0].Components[0].Design.Electro
+	// ASTM G1-03 §8.1.2: 0.350 g, 28.5 cm², 181 d = 4344 h, 7.87 g/cm³ →
+	// 87 600 × 0.35 / (28.5 × 4344 × 7.87) = 0.031467 mm/y.
+	if got := e.Coupons[0].Rate.MMPerY; math.Abs(got-0.031467) > 1e-5 {
+		t.Errorf("coupon rate %v", got)
+	}
+	// Generic ER formula, least squares over 0, 0.49555, 0.99384 y: 0.037059 mm/y.
+	if got := e.ERProbes[0].Rate.MMPerY; math.Abs(got-0.037059) > 1e-5 {
+		t.Errorf("ER rate %v", got)
+	}
+	// Stern–Geary with B 26 mV, R_p 2600 Ω·cm² → 10 µA/cm²; ASTM G102 §5
+	// for iron: 0.11601 mm/y.
+	if got := e.LPRProbes[0].Rates[0].MMPerY; math.Abs(got-0.11601) > 2e-5 {
+		t.Errorf("LPR rate %v", got)
+	}
+	// NACE SP0169-2013 §6.2.2.1: TP-1 2026 off −830 mV CSE and 70 mV of
+	// polarisation fails; −880 mV Ag/AgCl seawater = −930 mV CSE passes.
+	tp1, tp2 := e.TestPoints[0], e.TestPoints[1]
+	if st := tp1.Visits[1].Judgement.Status; st != electrochem.NotProtected {
+		t.Errorf("TP-1 2026: %v", st)
+	}
+	if tp1.Trend == nil || tp1.Trend.ChangeMV != 75 || !tp1.Trend.Worsening {
+		t.Errorf("TP-1 trend %+v", tp1.Trend)
+	}
+	if e.OverLimitMV == nil || *e.OverLimitMV != -1100 {
+		t.Errorf("overprotection limit %v", e.OverLimitMV)
+	}
+	if st := tp2.Visits[0].Judgement.Status; st != electrochem.Protected {
+		t.Errorf("TP-2: %v", st)
+	}
+	fails := s.FailingTestPoints()
+	if len(fails) != 1 || fails[0].Point != "TP-1" || fails[0].Line != 36 {
+		t.Errorf("failing points %+v", fails)
+	}
+	// DNV-RP-B401 (2017) §7: 10 kg × 0.9 × 2000 / (0.2 × 8760) = 10.274 y →
+	// replaced 2037-02.
+	if l := e.Anodes[0].Life.Years; math.Abs(l-10.274) > 1e-3 || e.AnodeReplacement.Time.Year() != 2037 {
+		t.Errorf("anode life %v replace %v", l, e.AnodeReplacement)
+	}
+	// ASTM G82 guide series: steel / passive 316 differ by 0.61 V > 0.25 V.
+	if e.Galvanic == nil || !e.Galvanic.Warn {
+		t.Errorf("galvanic %+v", e.Galvanic)
+	}
+	// Wall 10.0 → 9.9 mm is within the 0.28 mm gauge tolerance (no measurable
+	// loss); the rate source max lets the LPR probe's 0.116 mm/y govern:
+	// RL = (9.9 − 5) / 0.11601 = 42.24 y.
+	items := Assess(s, wallloss.DefaultPolicy)
+	r := items[0].Result
+	if r.RateFrom != "probe LPR-1" || r.RemainingLifeY == nil || math.Abs(*r.RemainingLifeY-42.24) > 0.01 || !r.HasFlag(wallloss.FlagRatesDisagree) {
+		t.Errorf("governing %q life %v flags %v (%s)", r.RateFrom, r.RemainingLifeY, r.Flags, r.RateWhy)
+	}
+	// ASTM D610 Table 1 and ISO 4628-3 Annex B: 0.5 % → 6 and Ri 2; ISO 19840
+	// with 2 of 10 at 90 %: accepted; ISO 9223 C4 zinc 2.1–4.2 µm/a: 85 µm
+	// lasts 20.2–40.5 y (ISO 14713-1).
+	co := s.Assets[0].Components[1].Design.Electro.Coating
+	if co.D610 != 6 || co.ISORi != 2 || co.DFT == nil || !co.DFT.Accepted || co.Galvanizing == nil || math.Abs(co.Galvanizing.ShortestY-20.238) > 1e-3 {
+		t.Errorf("coating %+v", co)
+	}
+}
+
+// Electro problems point at their line.
+func TestElectroProblems(t *testing.T) {
+	head := "---\ntitle: x\ndate: 2026-11-18\nunits: mm\n---\n## C\n\n- nominal: 10\n"
+	tail := "\n| CML | 2026-01-01 |\n|---|---|\n| A | 9 |\n"
+	for _, c := range []struct{ name, body, want string }{
+		{"coupon header", "\n| coupon | metal | in | out |\n|---|---|---|---|\n| C | steel | 2026-01-01 | 2026-02-01 |\n", "survey.md:10: a coupon table's header is | coupon | metal | installed"},
+		{"mass gain", "\n| coupon | metal | installed | removed | mass before g | mass after g | area cm2 | deepest pit mm |\n|-|-|-|-|-|-|-|-|\n| C | steel | 2026-01-01 | 2026-02-01 | 10 | 10.5 | 20 | - |\n", "survey.md:12: coupon C: mass after cleaning 10.5 g is more than before 10 g"},
+		{"electrode", "\n| test point | date | electrode | on mV | off mV | native mV |\n|-|-|-|-|-|-|\n| T | 2026-01-01 | platinum | -900 | - | - |\n", `survey.md:12: test point T: reference electrode "platinum"`},
+		{"two rows", "\n| test point | date | electrode | on mV | off mV | native mV |\n|-|-|-|-|-|-|\n| T | 2026-01-01 | CSE | -900 | - | - |\n| T | 2026-01-01 | CSE | -910 | - | - |\n", "survey.md:13: test point T: T has two rows on 2026-01-01 (first at line 12)"},
+		{"zinc without category", "- zinc thickness: 85 um\n", "survey.md:9: zinc thickness: give the site's corrosivity"},
+		{"material", "- material: unobtainium\n", `survey.md:9: material: material "unobtainium" is not in the galvanic series`},
+		{"utilisation", "\n| anode | material | installed kg | remaining kg | current A | utilisation |\n|-|-|-|-|-|-|\n| A1 | zinc | - | 5 | 0.1 | most |\n", "survey.md:12: anode A1: utilisation:"},
+		{"rate source without coupon", "- rate source: coupon\n", "survey.md:9: rate source coupon, but \"C\" has no coupon table"},
+		{"overprotection limit", "- overprotection limit: -500 mV CSE\n", "survey.md:9: overprotection limit: -500 mV CSE is not between"},
+		{"ER falling", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 0.254 | 400 | 100 |\n", "survey.md:12: warning: ER probe ER-1: the readings fall over time"},
+		{"dft half", "- dft nominal: 200 um\n", "survey.md:9: give both dft nominal and dft readings"},
+	} {
+		_, problems := readElectro(t, head+c.body+tail)
+		wantProblem(t, c.name, problems, c.want)
+	}
+}
+
+// The README's electro example parses and computes without a problem.
+func TestReadmeElectroExample(t *testing.T) {
+	readme := readmeText(t)
+	_, rest, ok := strings.Cut(readme, "<!-- electro example -->\n````markdown\n")
+	example, _, ok2 := strings.Cut(rest, "````")
+	if !ok || !ok2 {
+		t.Fatal("README has no electro example")
+	}
+	_, problems := readElectro(t, example)
+	if len(problems) != 0 {
+		t.Errorf("README electro example: %v", problems)
+	}
+}
+
+func readmeText(t *testing.T) string {
+	t.Helper()
+	b, err := os.ReadFile(filepath.Join("..", "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return string(b)
+}
