@@ -10,6 +10,7 @@ import (
 	"time"
 
 	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/electrochem"
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
@@ -19,12 +20,13 @@ type Kind string
 // Kinds of action. The id of a computed action is its kind's prefix and its
 // subject (see Action.ID).
 const (
-	BelowRequired  Kind = "at or below required" // REQ-<CML>
-	NextInspection Kind = "next inspection"      // INSP-<hash of asset, component>
-	PlannedRepair  Kind = "planned repair"       // REP-<hash of asset, component>
-	ScopeNotDone   Kind = "scope not done"       // SCOPE-<hash of asset, component, item>
-	ConfirmRate    Kind = "confirm rate"         // RATE-<CML>
-	Written        Kind = "inspector's action"   // as written, or W-<hash>
+	BelowRequired    Kind = "at or below required" // REQ-<CML>
+	NextInspection   Kind = "next inspection"      // INSP-<hash of asset, component>
+	PlannedRepair    Kind = "planned repair"       // REP-<hash of asset, component>
+	ScopeNotDone     Kind = "scope not done"       // SCOPE-<hash of asset, component, item>
+	ConfirmRate      Kind = "confirm rate"         // RATE-<CML>
+	ProtectionNotMet Kind = "protection not met"   // CP-<hash of asset, component, test point>
+	Written          Kind = "inspector's action"   // as written, or W-<hash>
 )
 
 // Priority orders actions of the same due date; Immediate is the most urgent.
@@ -95,7 +97,15 @@ type Input struct {
 	Items   []*survey.Assessed // rank order
 	Changes []survey.Change    // one per item
 	Repairs []Planned          // funded rows of the repair plan; nil without a plan
+	// CP are the cathodic-protection test points failing at their latest visit.
+	CP []survey.FailingPoint
 }
+
+// CorrectWithin is the time within which a test point that does not meet
+// the protection criterion is investigated and corrected: three months,
+// lossline's choice (common practice is to correct deficiencies found in a
+// periodic survey promptly; an inspector's written action overrides it).
+const CorrectWithin = 3 // months
 
 // ConfirmWithin is the time within which an accelerating CML is to be
 // re-measured, unless its next inspection is sooner: six months, lossline's
@@ -194,6 +204,18 @@ func Register(in Input) []Action {
 			ID: "REP-" + hash(rp.Asset, rp.Component.Name), Kind: PlannedRepair, Priority: p, Due: rp.Due,
 			Asset: rp.Asset, Component: rp.Component.Name, Reason: reason,
 			Rule: "repairs funded by the repair plan", File: rp.Component.File, Line: rp.Component.Line,
+		})
+	}
+	for _, p := range in.CP {
+		prio, todo := High, "investigate and restore protection"
+		if p.Status == electrochem.Undetermined {
+			prio, todo = Medium, "take instant-off readings to judge it"
+		}
+		out = append(out, Action{
+			ID: "CP-" + hash(p.Asset, p.Component, p.Point), Kind: ProtectionNotMet, Priority: prio,
+			Due: s.Date.AddDate(0, CorrectWithin, 0), Asset: p.Asset, Component: p.Component,
+			Reason: fmt.Sprintf("test point %s, %s: %s; %s", p.Point, p.Status, strings.Join(p.Reasons, "; "), todo),
+			Rule:   "a test point failing its protection criterion is corrected", File: p.File, Line: p.Line,
 		})
 	}
 	for _, w := range s.Actions {

@@ -2,10 +2,12 @@ package actions
 
 import (
 	"slices"
+	"strings"
 	"testing"
 	"time"
 
 	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/electrochem"
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
@@ -127,5 +129,40 @@ func TestComputedIDsStable(t *testing.T) {
 	}
 	if hash("Tank", "Shell") == hash("Tank", "Shell 2") || len(hash("x")) != 6 {
 		t.Error("hash ids collide or have the wrong length")
+	}
+}
+
+// A test point failing the −850 mV CSE instant-off criterion (NACE SP0169-2013
+// §6.2.2.1) becomes a high-priority action due within CorrectWithin; one whose
+// protection cannot be judged from "on" readings alone asks for instant-off
+// readings, at medium priority.
+func TestFailingTestPointsBecomeActions(t *testing.T) {
+	in := registerInput(t)
+	in.CP = []survey.FailingPoint{
+		{Asset: "Tank", Component: "Bottom CP", Point: "TP-2", File: "survey.md", Line: 40,
+			Status: electrochem.NotProtected, Reasons: []string{"instant-off −815 mV CSE is less negative than −850 mV"}},
+		{Asset: "Tank", Component: "Bottom CP", Point: "TP-3", File: "survey.md", Line: 41,
+			Status: electrochem.Undetermined, Reasons: []string{"only an on potential"}},
+	}
+	var cp []Action
+	for _, a := range Register(in) {
+		if a.Kind == ProtectionNotMet {
+			cp = append(cp, a)
+		}
+	}
+	if len(cp) != 2 {
+		t.Fatalf("%d protection actions, want 2", len(cp))
+	}
+	due := day("2026-09-01") // survey date 2026-06-01 plus three months
+	for _, a := range cp {
+		if !a.Due.Equal(due) || a.Line == 0 {
+			t.Errorf("%s due %s line %d, want due %s and the row's line", a.ID, a.Due.Format(time.DateOnly), a.Line, due.Format(time.DateOnly))
+		}
+	}
+	if cp[0].Priority != High || !strings.Contains(cp[0].Reason, "restore protection") {
+		t.Errorf("not protected: %v %q", cp[0].Priority, cp[0].Reason)
+	}
+	if cp[1].Priority != Medium || !strings.Contains(cp[1].Reason, "instant-off readings") {
+		t.Errorf("not determined: %v %q", cp[1].Priority, cp[1].Reason)
 	}
 }

@@ -97,7 +97,8 @@ func Compute(s *survey.Survey, set Settings) *Findings {
 		cands = append(cands, plan.UpkeepCandidates(s.Title, s, s.Date, set.Plan.Years)...)
 		f.Repairs = repairsOf(cands, noCost, set, s.Date)
 	}
-	f.Actions = actions.Register(actions.Input{Survey: s, Items: items, Changes: f.Changes, Repairs: plannedRepairs(f.Repairs, s.Date, set.Plan.Years)})
+	f.Actions = actions.Register(actions.Input{Survey: s, Items: items, Changes: f.Changes, Repairs: plannedRepairs(f.Repairs, s.Date, set.Plan.Years),
+		CP: s.FailingTestPoints()})
 	return f
 }
 
