@@ -92,6 +92,8 @@ type Design struct {
 	RepairQuantity    float64
 	RepairItem        string
 	RepairThicknessMM *float64
+
+	Local *LocalDamage // grids, pits, corroded area, member; nil when none is written
 }
 
 // MethodInput is one `name: value` item under a `required:` method, as written.

@@ -88,14 +88,14 @@ func Original(c CorrodedArea) (StrengthResult, error) {
 	if err := c.check(); err != nil {
 		return StrengthResult{}, err
 	}
-	r := StrengthResult{Method: "ASME B31G original (⅔·d·L)", FlowMPa: 1.1 * c.SMYSMPa}
+	r := StrengthResult{Method: "ASME B31G original ((2/3)·d·L)", FlowMPa: 1.1 * c.SMYSMPa}
 	r.Z = c.LengthMM * c.LengthMM / (c.OutsideDiameterMM * c.WallMM)
 	dt := c.DepthMM / c.WallMM
 	r.Steps = append(r.Steps, fmt.Sprintf("z = L²/(D·t) = %.4g²/(%.4g × %.4g) = %.4f; S_flow = 1.1 × SMYS = %.1f MPa", c.LengthMM, c.OutsideDiameterMM, c.WallMM, r.Z, r.FlowMPa))
 	if r.Z <= 20 {
 		r.M = FoliasOriginal(r.Z)
 		r.FailureMPa = r.FlowMPa * (1 - 2.0/3*dt) / (1 - 2.0/3*dt/r.M)
-		r.Steps = append(r.Steps, fmt.Sprintf("z ≤ 20: M = √(1 + 0.8·z) = %.4f; S_F = S_flow·(1 − ⅔·d/t)/(1 − ⅔·(d/t)/M) = %.1f MPa (d/t = %.4f)", r.M, r.FailureMPa, dt))
+		r.Steps = append(r.Steps, fmt.Sprintf("z ≤ 20: M = √(1 + 0.8·z) = %.4f; S_F = S_flow·(1 − (2/3)·d/t)/(1 − (2/3)·(d/t)/M) = %.1f MPa (d/t = %.4f)", r.M, r.FailureMPa, dt))
 	} else {
 		r.M = math.Inf(1)
 		r.FailureMPa = r.FlowMPa * (1 - dt)

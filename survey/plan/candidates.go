@@ -71,7 +71,7 @@ func Candidates(source string, items []*survey.Assessed, costs Costs) ([]*Candid
 		}
 		c.CMLs = append(c.CMLs, it)
 		r := it.Result
-		if r.Class == wallloss.AtOrBelowRequired {
+		if l, ok := it.Component.LocalLifeY(); r.Class == wallloss.AtOrBelowRequired || ok && l <= 0 {
 			c.Mandatory = true
 		}
 		if r.Retirement != nil && (c.Deadline == nil || r.Retirement.Before(*c.Deadline)) {
