@@ -93,6 +93,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		d.results(c)
 		d.trend(c)
 	}
+	d.localDamage(c) // grids and local-damage assessments (pdf_local.go)
 	if len(c.Scope) > 0 {
 		d.heading(2, "Scope checklist")
 		rows := make([][]string, len(c.Scope))

@@ -21,6 +21,8 @@ type Results struct {
 	Photos        []PhotoInfo    `json:"photos"`
 	Skipped       []SkippedInfo  `json:"skipped_files"`
 	Warnings      []Warning      `json:"warnings"`
+	Grids         []GridResult   `json:"grids"`        // grids of readings (results_local.go)
+	LocalDamage   []LocalResult  `json:"local_damage"` // local-damage assessments per component
 }
 
 // PhotoInfo is one photo: when and where it was taken and where it was placed.
@@ -124,6 +126,10 @@ type Item struct {
 	// required thickness).
 	BreachModel string       `json:"breach_model"`
 	Breach      []BreachYear `json:"breach_probability"`
+	// LocalDamageLifeY is the shortest life of the component's local-damage
+	// assessments (0: limit reached); LocalDamage their results in one line.
+	LocalDamageLifeY *float64 `json:"local_damage_life_y"`
+	LocalDamage      string   `json:"local_damage"`
 }
 
 // BreachYear is the probability of reaching the required thickness by a date.
@@ -203,8 +209,10 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 				item.Breach[j] = BreachYear{By: b.By[j].Format(dateLayout), Probability: *round(&p, 6)}
 			}
 		}
+		item.LocalDamageLifeY, item.LocalDamage = localOfItem(it.Component)
 		r.Items = append(r.Items, item)
 	}
+	r.Grids, r.LocalDamage = localResults(s)
 	for _, ph := range s.Photos {
 		pl := ph.Placement
 		info := PhotoInfo{File: ph.Name, Orientation: ph.Orientation, Asset: pl.Asset, Component: pl.Component, CML: pl.CML,

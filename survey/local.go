@@ -212,6 +212,7 @@ type PitDetail struct {
 	Estimate     localdamage.PitEstimate
 	Life         localdamage.PitLife
 	WallMM       float64
+	RequiredMM   float64 // the component's required thickness; 0 when none
 	GrowthMMPerY float64 // 0 when none is known
 	GrowthBasis  string
 }

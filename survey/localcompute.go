@@ -177,7 +177,7 @@ func (lr *localReader) pits() *LocalAssessment {
 		lr.errorf(lr.w.Line, "%v", err)
 		return nil
 	}
-	detail.Life = life
+	detail.Life, detail.RequiredMM = life, reqMM
 	la.Pits = detail
 	la.Steps = append(la.Steps, life.Steps...)
 	la.Limit = "the deepest pit estimate reaches the required thickness"
@@ -201,21 +201,21 @@ func (lr *localReader) pits() *LocalAssessment {
 // bottom is API 653 §4.4.7's minimum remaining thickness at the next inspection.
 func (lr *localReader) bottom() *LocalAssessment {
 	la := &LocalAssessment{Method: "API 653 tank bottom, minimum remaining thickness at the next inspection", Source: SourceBottom}
-	rtbc, _ := lr.length("bottom-side remaining", true)
+	rtbc, _ := lr.length("bottom side remaining", true)
 	var rtip float64
-	if in, ok := lr.find("product-side remaining"); ok && strings.EqualFold(strings.TrimSpace(in.Value), "pits") {
+	if in, ok := lr.find("product side remaining"); ok && strings.EqualFold(strings.TrimSpace(in.Value), "pits") {
 		p := lr.pitsDone()
 		if p == nil {
-			lr.errorf(in.Line, "product-side remaining: pits needs a pits: Gumbel assessment above it on the component")
+			lr.errorf(in.Line, "product side remaining: pits needs a pits: Gumbel assessment above it on the component")
 		} else {
 			rtip = p.Life.LigamentMM
-			lr.inputs = append(lr.inputs, required.Input{Name: "product-side remaining", Written: in.Value, Used: fmt.Sprintf("%.3f mm (ligament under the deepest pit estimate)", rtip)})
+			lr.inputs = append(lr.inputs, required.Input{Name: "product side remaining", Written: in.Value, Used: fmt.Sprintf("%.3f mm (ligament under the deepest pit estimate)", rtip)})
 		}
 	} else {
-		delete(lr.used, "product-side remaining")
-		rtip, _ = lr.length("product-side remaining", true)
+		delete(lr.used, "product side remaining")
+		rtip, _ = lr.length("product side remaining", true)
 	}
-	stp, _ := lr.rate("product-side rate", true)
+	stp, _ := lr.rate("product side rate", true)
 	up, _ := lr.rate("underside rate", true)
 	or, _ := lr.number("interval", "y", true)
 	barrierText, line, ok := lr.word("release prevention barrier")
