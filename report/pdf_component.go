@@ -84,6 +84,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		}
 		pairs = append(pairs, [2]string{"Governed by", gov})
 	}
+	pairs = append(pairs, localPairs(c)...) // pdf_local.go
 	d.keyValues(pairs, 40)
 	if des.RequiredCalc != nil {
 		d.derivation(des.RequiredCalc)

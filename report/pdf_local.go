@@ -4,9 +4,11 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/localdamage"
+	"github.com/lossline/lossline/survey/wallloss"
 )
 
 // localDamage writes a component's grids of readings and its local-damage
@@ -281,4 +283,63 @@ func (d *doc) gumbelPlot(p *survey.PitDetail) {
 		"Dotted line: the depth that leaves the required thickness.", "", "L", false)
 	d.font("", bodySize)
 	pdf.Ln(2)
+}
+
+// localMethods writes the methods of local damage when a component has any.
+func (d *doc) localMethods() error {
+	has := false
+	for _, a := range d.s.Assets {
+		for _, c := range a.Components {
+			has = has || c.Design.Local != nil
+		}
+	}
+	if !has {
+		return nil
+	}
+	text, err := d.opts.Templates.Execute("report/methods-local.md", nil)
+	if err != nil {
+		return fmt.Errorf("methods template: %w", err)
+	}
+	d.markdown(text)
+	return nil
+}
+
+// localStatus is what a CML's component's local damage adds to its status
+// in the ranked list, when it ranks the CML: "" otherwise.
+func localStatus(it *survey.Assessed) string {
+	life, ok := it.Component.LocalLifeY()
+	if !ok {
+		return ""
+	}
+	r := it.Result
+	switch {
+	case life <= 0:
+		return "; local damage: limit reached"
+	case r.Class != wallloss.AtOrBelowRequired && (r.PlanningLifeY() == nil || life < *r.PlanningLifeY()):
+		return fmt.Sprintf("; ranked by local damage, %.1f y", life)
+	}
+	return ""
+}
+
+// localPairs is the component's local-damage summary for its design table.
+func localPairs(c *survey.Component) [][2]string {
+	if c.Design.Local == nil || len(c.Design.Local.Assessments) == 0 {
+		return nil
+	}
+	var parts []string
+	for _, la := range c.Design.Local.Assessments {
+		parts = append(parts, la.Key+": "+la.Result)
+	}
+	v := strings.Join(parts, "\n")
+	if life, ok := c.LocalLifeY(); ok {
+		v += fmt.Sprintf("\nshortest life to a local-damage limit: %.1f y (derivations below)", life)
+	}
+	return [][2]string{{"Local damage", v}}
+}
+
+// localUrgent reports a CML whose component's local damage leaves under 5
+// years, the ranked list's mark for an urgent row.
+func localUrgent(it *survey.Assessed) bool {
+	life, ok := it.Component.LocalLifeY()
+	return ok && life < 5
 }

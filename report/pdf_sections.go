@@ -231,11 +231,11 @@ func (d *doc) ranked() {
 		rows[i] = []string{
 			strconv.Itoa(it.Rank), it.Asset.Name + " / " + it.Component.Name, it.CML.ID,
 			d.u.thick(r.ThicknessMM), d.u.thick(it.Component.Design.RequiredMM), d.u.rate(r.RateMMPerY),
-			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, status(r), flagsText(r.Flags),
+			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, status(r) + localStatus(it), flagsText(r.Flags),
 		}
 	}
 	d.table(cols, rows, func(i int) rowStyle {
-		u := urgent(d.items[i].Result)
+		u := urgent(d.items[i].Result) || localUrgent(d.items[i])
 		return rowStyle{bold: u, shade: u}
 	}, smallSize)
 }

@@ -94,8 +94,8 @@ func TestParseDemo(t *testing.T) {
 	if s.Title == "" || s.Units != MM || s.Date.Format("2006-01-02") != "2026-11-18" {
 		t.Errorf("front matter: %q %q %v", s.Title, s.Units, s.Date)
 	}
-	if len(s.Assets) != 4 || len(s.AllCMLs()) != 28 {
-		t.Fatalf("%d assets, %d CMLs; want 4 and 28", len(s.Assets), len(s.AllCMLs()))
+	if len(s.Assets) != 5 || len(s.AllCMLs()) != 33 {
+		t.Fatalf("%d assets, %d CMLs; want 5 and 33", len(s.Assets), len(s.AllCMLs()))
 	}
 	byID := map[string]Located{}
 	for _, l := range s.AllCMLs() {

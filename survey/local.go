@@ -5,6 +5,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"time"
 
 	"github.com/yuin/goldmark/ast"
 
@@ -17,6 +18,7 @@ import (
 // (grids, pit depths, a corroded area, a member's plates) and, once
 // ComputeLocal has run, what each assessment gives.
 type LocalDamage struct {
+	Date        time.Time      // of the survey the assessments date from
 	Written     []LocalWritten // each local-damage key with the inputs under it
 	Grids       []*GridReadings
 	Assessments []*LocalAssessment // in the order written
@@ -243,6 +245,15 @@ func (c *Component) LocalLifeY() (life float64, ok bool) {
 		}
 	}
 	return life, ok
+}
+
+// LocalLifeAt is LocalLifeY left at time t, never below 0.
+func (c *Component) LocalLifeAt(t time.Time) (float64, bool) {
+	life, ok := c.LocalLifeY()
+	if !ok {
+		return 0, false
+	}
+	return max(life-wallloss.YearsBetween(c.Design.Local.Date, t), 0), true
 }
 
 // withLocalDamage ranks a CML by the more urgent of its wall result and its

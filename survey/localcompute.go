@@ -29,6 +29,7 @@ func ComputeLocal(s *Survey) ProblemList {
 			if c.Design.Local == nil {
 				continue
 			}
+			c.Design.Local.Date = s.Date
 			for _, g := range c.Design.Local.Grids {
 				attachGrid(c, g, &problems)
 			}

@@ -112,7 +112,7 @@ func (c *Candidate) RiskAt(t time.Time) (before, after int) {
 	cons := ConsequenceLevel(c.Component.Design.Consequence)
 	for _, it := range c.CMLs {
 		r := it.Result
-		before = max(before, int(LikelihoodOfLife(lifeAt(r, t)))*cons)
+		before = max(before, int(LikelihoodOfLife(withLocalDamage(c.Component, lifeAt(r, t), t)))*cons)
 		after = max(after, int(LikelihoodOfLife(c.lifeAfterRepair(r)))*cons)
 	}
 	return before, after
