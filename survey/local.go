@@ -67,7 +67,7 @@ func init() {
 		designKeys[key] = func(d *Design, value string, _ Unit) error {
 			m := strings.ToLower(strings.Join(strings.Fields(value), " "))
 			if !slices.Contains(methods, m) {
-				return fmt.Errorf("%s: %q is not one of: %s", key, value, strings.Join(methods, ", "))
+				return fmt.Errorf("%s: %q is not one of: %s (to keep the line as a note, write it without the colon)", key, value, strings.Join(methods, ", "))
 			}
 			if d.Local == nil {
 				d.Local = &LocalDamage{}
