@@ -2,6 +2,8 @@ package survey
 
 import (
 	"math"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 
@@ -176,5 +178,41 @@ func TestLocalDamageProblems(t *testing.T) {
 		if !strings.Contains(all, tc.want) {
 			t.Errorf("%s: errors\n%s\nlack %q", tc.name, all, tc.want)
 		}
+	}
+}
+
+// Every local-damage snippet in README.md reads and computes under a component.
+func TestReadmeLocalSnippets(t *testing.T) {
+	readme, err := os.ReadFile(filepath.Join("..", "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := 0
+	for _, part := range strings.Split(string(readme), "```markdown\n")[1:] {
+		snippet, _, _ := strings.Cut(part, "```")
+		key, _, _ := strings.Cut(snippet, ":")
+		table := "\n| CML | 2026-11-18 |\n|---|---|\n| BS-01 | 9 |\n"
+		var body string
+		switch key {
+		case "- pits", "- bottom pitting", "- corroded area", "- member":
+			body = "## C\n\n- nominal: 8.18\n- required: 2.5\n" + snippet + table
+		default:
+			if !strings.HasPrefix(snippet, "| grid ") {
+				continue
+			}
+			body = "## C\n\n- nominal: 8.18\n- required: 2.5\n" + table + "\n" + snippet
+		}
+		n++
+		s, problems := parseLocal(t, body)
+		if problems.HasErrors() {
+			t.Errorf("README snippet %q: %v", key, problems)
+			continue
+		}
+		if ld := s.Assets[0].Components[0].Design.Local; ld == nil || len(ld.Assessments)+len(ld.Grids) != 1 {
+			t.Errorf("README snippet %q computed nothing", key)
+		}
+	}
+	if n != 5 {
+		t.Errorf("%d local-damage snippets in README, want 5", n)
 	}
 }
