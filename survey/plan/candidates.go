@@ -77,6 +77,9 @@ func Candidates(source string, items []*survey.Assessed, costs Costs) ([]*Candid
 		if r.Retirement != nil && (c.Deadline == nil || r.Retirement.Before(*c.Deadline)) {
 			c.Deadline = r.Retirement
 		}
+		if d := localDeadline(it.Component); d != nil && (c.Deadline == nil || d.Before(*c.Deadline)) {
+			c.Deadline = d // local damage reaches its limit first (local.go)
+		}
 	}
 	return out, missing
 }
