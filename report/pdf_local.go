@@ -105,8 +105,8 @@ func (d *doc) grid(g *survey.GridReadings) {
 	p.SetXY(margin, y0+float64(len(g.Rows))*cellH+1.5)
 	d.font("I", smallSize)
 	p.MultiCell(0, 3.6, fmt.Sprintf("Shade by thickness: darkest is the thinnest reading (%s %s), lightest the thickest; the minimum is in bold; "+
-		"a heavy inner border marks a reading below required; %s means not read. The grid's readings join the CML's visit of %s, "+
-		"so its minimum is the governing reading and the rate uses it.", d.u.u.Format(lo), d.u.u, none, g.Date), "", "L", false)
+		"a heavy inner border marks a reading below required; %s means not read. The grid's minimum is among the readings of the CML's row "+
+		"for %s, so it is the governing reading and the rate uses it; the mean is shown, not used.", d.u.u.Format(lo), d.u.u, none, g.Date), "", "L", false)
 	d.font("", bodySize)
 	p.Ln(2)
 }

@@ -297,7 +297,8 @@ func TestParseAmount(t *testing.T) {
 // readChecklist reads a checklist and computes its required thicknesses, as Load does.
 func readChecklist(file string, src []byte) (*Survey, ProblemList) {
 	s, problems := ParseChecklist(file, src)
-	return s, append(problems, ComputeRequired(s)...)
+	problems = append(problems, ComputeRequired(s)...)
+	return s, append(problems, ComputeLocal(s)...)
 }
 
 // wantProblem fails unless a problem starts with want.

@@ -39,7 +39,7 @@ const localBody = `## Floor
 
 | CML | 2014-09-10 | 2026-11-18 |
 |---|---|---|
-| F-1 | 7.5 | 7.1 |
+| F-1 | 7.5 | 7.1 6.4 |
 
 | grid F-1 2026-11-18 | A | B |
 |---|---|---|
@@ -86,13 +86,13 @@ func TestLocalDamageRead(t *testing.T) {
 		t.Fatal(problems)
 	}
 	floor, pipe, girder := s.Assets[0].Components[0], s.Assets[0].Components[1], s.Assets[0].Components[2]
-	// The grid joins F-1's visit: the governing reading becomes the grid minimum.
+	// The grid's minimum is written in F-1's row, whose readings stay as written.
 	g := floor.Design.Local.Grids[0]
 	if g.CML != "F-1" || g.Line != 29 || g.Stats.Count != 3 || g.Stats.MinMM != 6.4 || g.Stats.MinRow != 1 || g.Stats.MinCol != 1 {
 		t.Errorf("grid %+v", g)
 	}
-	if v := floor.CMLs[0].Visits[1]; v.Governing() != 6.4 || len(v.ReadingsMM) != 4 {
-		t.Errorf("visit after the grid: %v", v.ReadingsMM)
+	if v := floor.CMLs[0].Visits[1]; v.Governing() != 6.4 || len(v.ReadingsMM) != 2 {
+		t.Errorf("visit with the grid: %v", v.ReadingsMM)
 	}
 	as := floor.Design.Local.Assessments
 	if len(as) != 2 || as[0].Pits == nil || as[1].Bottom == nil {
@@ -156,7 +156,9 @@ func TestLocalDamageProblems(t *testing.T) {
 		{"limit without engineer", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of Sx\n" + table, "survey.md:13: member: allowed loss: name the engineer"},
 		{"limit of an unknown quantity", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of J\n  - set by: A. B.\n" + table, `survey.md:13: member: allowed loss: "J" is not one of area, Ix, Iy, Sx, Sy`},
 		{"grid of a missing CML", "## C\n\n- nominal: 8\n" + table + "\n| grid B 2026-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: grid B: no CML B"},
-		{"grid on a date not in the table", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2025-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: grid A: 2025-11-18 is not a visit column"},
+		{"grid on a date not in the table", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2025-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: grid A: the CML's row has no reading on 2025-11-18"},
+		{"grid minimum not in the row", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 6.5 |\n", "survey.md:16: grid A: its minimum 6.5 mm (row a, column 1) is below the row's governing reading 7 mm"},
+		{"grid minimum at the row's", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 7.0 |\n", ""},
 		{"grid cell not a number", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 7,1 |\n", "survey.md:18: grid A, row a, column 1"},
 		{"grid row short", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 | 2 |\n|---|---|---|\n| a | 7 |\n", "survey.md:18: grid A: row has 2 cells, the header 3"},
 		{"bottom barrier not yes or no", "## C\n\n- nominal: 8\n- bottom pitting: API 653\n  - bottom side remaining: 5\n  - product side remaining: 5\n  - product side rate: 0.1\n  - underside rate: 0.1\n  - interval: 5 y\n  - release prevention barrier: maybe\n" + table, "survey.md:17: bottom pitting: release prevention barrier: write yes or no"},
@@ -200,7 +202,7 @@ func TestReadmeLocalSnippets(t *testing.T) {
 			if !strings.HasPrefix(snippet, "| grid ") {
 				continue
 			}
-			body = "## C\n\n- nominal: 8.18\n- required: 2.5\n" + table + "\n" + snippet
+			body = "## C\n\n- nominal: 8.18\n- required: 2.5\n" + strings.Replace(table, "| 9 |", "| 9 5.74 |", 1) + "\n" + snippet
 		}
 		n++
 		s, problems := parseLocal(t, body)

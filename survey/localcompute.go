@@ -2,7 +2,6 @@ package survey
 
 import (
 	"fmt"
-	"math"
 	"slices"
 	"strings"
 
@@ -57,17 +56,15 @@ func ComputeLocal(s *Survey) ProblemList {
 	return problems
 }
 
-// attachGrid adds a grid's readings to its CML's visit of the grid's date,
-// so the governing (minimum) reading includes the grid, and computes its
-// statistics against the component's required thickness.
+// attachGrid checks a grid against its CML's row and computes its
+// statistics against the component's required thickness. The row's
+// readings stay the ones rates use: the grid's minimum must be among them
+// (or above their minimum), so the governing reading is the least of grid
+// and row.
 func attachGrid(c *Component, g *GridReadings, problems *ProblemList) {
 	i := slices.IndexFunc(c.CMLs, func(m *CML) bool { return m.ID == g.CML })
 	if i < 0 {
 		problems.Errorf(c.File, g.Line, "grid %s: no CML %s in the reading table of %q", g.CML, g.CML, c.Name)
-		return
-	}
-	if !slices.ContainsFunc(c.VisitDates, func(d VisitDate) bool { return d.Time.Equal(g.Date.Time) }) {
-		problems.Errorf(c.File, g.Line, "grid %s: %s is not a visit column of the reading table of %q", g.CML, g.Date, c.Name)
 		return
 	}
 	if c.Design.RequiredMM != nil {
@@ -78,24 +75,18 @@ func attachGrid(c *Component, g *GridReadings, problems *ProblemList) {
 		problems.Errorf(c.File, g.Line, "grid %s: %v", g.CML, err)
 		return
 	}
-	g.Stats = st
-	var read []float64
-	for _, row := range g.CellsMM {
-		for _, v := range row {
-			if !math.IsNaN(v) {
-				read = append(read, v)
-			}
-		}
-	}
 	m := c.CMLs[i]
-	for k := range m.Visits {
-		if m.Visits[k].Date.Time.Equal(g.Date.Time) {
-			m.Visits[k].ReadingsMM = append(m.Visits[k].ReadingsMM, read...)
-			return
-		}
+	k := slices.IndexFunc(m.Visits, func(v Visit) bool { return v.Date.Time.Equal(g.Date.Time) })
+	if k < 0 {
+		problems.Errorf(c.File, g.Line, "grid %s: the CML's row has no reading on %s: write the grid's minimum (%.4g mm) in that column", g.CML, g.Date, st.MinMM)
+		return
 	}
-	m.Visits = append(m.Visits, Visit{Date: g.Date, ReadingsMM: read, File: c.File, Line: g.Line})
-	slices.SortStableFunc(m.Visits, func(a, b Visit) int { return a.Date.Time.Compare(b.Date.Time) })
+	if gov := m.Visits[k].Governing(); gov > st.MinMM {
+		problems.Errorf(c.File, g.Line, "grid %s: its minimum %.4g mm (row %s, column %s) is below the row's governing reading %.4g mm on %s: add the grid's minimum to the row's cell, whose readings are the ones the rates use",
+			g.CML, st.MinMM, g.Rows[st.MinRow], g.Cols[st.MinCol], gov, g.Date)
+		return
+	}
+	g.Stats = st
 }
 
 // pits is the Gumbel extrapolation of pit depths over the whole area.
