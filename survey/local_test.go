@@ -144,29 +144,30 @@ func TestLocalDamageProblems(t *testing.T) {
 	table := "\n| CML | 2026-11-18 |\n|---|---|\n| A | 7 |\n"
 	for _, tc := range []struct {
 		name, body, want string
+		warning          bool // want is a warning
 	}{
-		{"unknown method", "## C\n\n- nominal: 8\n- pits: Weibull\n" + table, `survey.md:11: pits: "Weibull" is not one of: gumbel`},
-		{"missing input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n" + table, "survey.md:11: pits: give total area"},
-		{"bad area unit", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 acre\n  - total area: 9 m2\n" + table, `survey.md:13: pits: sample area: "1 acre": unknown area unit`},
-		{"too few pits", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "survey.md:11: pits: 2 pit-depth samples"},
-		{"unknown input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n  - total area: 9 m2\n  - colour: red\n" + table, `survey.md:15: pits: "colour" is not an input`},
-		{"pressure without unit", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 2\n  - length: 50\n  - SMYS: 241\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:15: corroded area: smys: "241": give the unit`},
-		{"too deep is repair, not an error", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 7\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, ""},
-		{"depth beyond wall", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 9\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "survey.md:11: corroded area: the depth must be at least 0 and less than the wall"},
-		{"limit without engineer", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of Sx\n" + table, "survey.md:13: member: allowed loss: name the engineer"},
-		{"limit of an unknown quantity", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of J\n  - set by: A. B.\n" + table, `survey.md:13: member: allowed loss: "J" is not one of area, Ix, Iy, Sx, Sy`},
-		{"grid of a missing CML", "## C\n\n- nominal: 8\n" + table + "\n| grid B 2026-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: grid B: no CML B"},
-		{"grid on a date not in the table", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2025-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: grid A: the CML's row has no reading on 2025-11-18"},
-		{"grid minimum not in the row", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 6.5 |\n", "survey.md:16: grid A: its minimum 6.5 mm (row a, column 1) is below the row's governing reading 7 mm"},
-		{"grid minimum at the row's", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 7.0 |\n", ""},
-		{"grid cell not a number", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 7,1 |\n", "survey.md:18: grid A, row a, column 1"},
-		{"grid row short", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 | 2 |\n|---|---|---|\n| a | 7 |\n", "survey.md:18: grid A: row has 2 cells, the header 3"},
-		{"bottom barrier not yes or no", "## C\n\n- nominal: 8\n- bottom pitting: API 653\n  - bottom side remaining: 5\n  - product side remaining: 5\n  - product side rate: 0.1\n  - underside rate: 0.1\n  - interval: 5 y\n  - release prevention barrier: maybe\n" + table, "survey.md:17: bottom pitting: release prevention barrier: write yes or no"},
+		{"grid on a date the row has no reading", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2025-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: warning: grid A: the CML's row has no reading on 2025-11-18", true},
+		{"unknown method", "## C\n\n- nominal: 8\n- pits: Weibull\n" + table, `survey.md:11: pits: "Weibull" is not one of: gumbel`, false},
+		{"missing input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n" + table, "survey.md:11: pits: give total area", false},
+		{"bad area unit", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 acre\n  - total area: 9 m2\n" + table, `survey.md:13: pits: sample area: "1 acre": unknown area unit`, false},
+		{"too few pits", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "survey.md:11: pits: 2 pit-depth samples", false},
+		{"unknown input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n  - total area: 9 m2\n  - colour: red\n" + table, `survey.md:15: pits: "colour" is not an input`, false},
+		{"pressure without unit", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 2\n  - length: 50\n  - SMYS: 241\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:15: corroded area: smys: "241": give the unit`, false},
+		{"too deep is repair, not an error", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 7\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "", false},
+		{"depth beyond wall", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 9\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "survey.md:11: corroded area: the depth must be at least 0 and less than the wall", false},
+		{"limit without engineer", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of Sx\n" + table, "survey.md:13: member: allowed loss: name the engineer", false},
+		{"limit of an unknown quantity", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of J\n  - set by: A. B.\n" + table, `survey.md:13: member: allowed loss: "J" is not one of area, Ix, Iy, Sx, Sy`, false},
+		{"grid of a missing CML", "## C\n\n- nominal: 8\n" + table + "\n| grid B 2026-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: grid B: no CML B", false},
+		{"grid minimum not in the row", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 6.5 |\n", "survey.md:16: grid A: its minimum 6.5 mm (row a, column 1) is below the row's governing reading 7 mm", false},
+		{"grid minimum at the row's", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 7.0 |\n", "", false},
+		{"grid cell not a number", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 7,1 |\n", "survey.md:18: grid A, row a, column 1", false},
+		{"grid row short", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 | 2 |\n|---|---|---|\n| a | 7 |\n", "survey.md:18: grid A: row has 2 cells, the header 3", false},
+		{"bottom barrier not yes or no", "## C\n\n- nominal: 8\n- bottom pitting: API 653\n  - bottom side remaining: 5\n  - product side remaining: 5\n  - product side rate: 0.1\n  - underside rate: 0.1\n  - interval: 5 y\n  - release prevention barrier: maybe\n" + table, "survey.md:17: bottom pitting: release prevention barrier: write yes or no", false},
 	} {
 		_, problems := parseLocal(t, tc.body)
 		var got []string
 		for _, p := range problems {
-			if p.Severity == Error {
+			if p.Severity == Error || tc.warning {
 				got = append(got, p.String())
 			}
 		}

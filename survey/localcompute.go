@@ -60,7 +60,8 @@ func ComputeLocal(s *Survey) ProblemList {
 // statistics against the component's required thickness. The row's
 // readings stay the ones rates use: the grid's minimum must be among them
 // (or above their minimum), so the governing reading is the least of grid
-// and row.
+// and row; a row with no reading that day is warned of (a field sheet not
+// yet filled in).
 func attachGrid(c *Component, g *GridReadings, problems *ProblemList) {
 	i := slices.IndexFunc(c.CMLs, func(m *CML) bool { return m.ID == g.CML })
 	if i < 0 {
@@ -78,7 +79,8 @@ func attachGrid(c *Component, g *GridReadings, problems *ProblemList) {
 	m := c.CMLs[i]
 	k := slices.IndexFunc(m.Visits, func(v Visit) bool { return v.Date.Time.Equal(g.Date.Time) })
 	if k < 0 {
-		problems.Errorf(c.File, g.Line, "grid %s: the CML's row has no reading on %s: write the grid's minimum (%.4g mm) in that column", g.CML, g.Date, st.MinMM)
+		problems.Warnf(c.File, g.Line, "grid %s: the CML's row has no reading on %s, so no rate uses the grid: write the grid's minimum (%.4g mm) in that column", g.CML, g.Date, st.MinMM)
+		g.Stats = st
 		return
 	}
 	if gov := m.Visits[k].Governing(); gov > st.MinMM {

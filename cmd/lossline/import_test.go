@@ -362,7 +362,7 @@ func TestImportDryRunThenWrite(t *testing.T) {
 		t.Errorf("survey.md.orig was overwritten")
 	}
 	// 1.58 against G2-03's nominal 16.0 and the component's readings: a decimal slip warned about.
-	if !strings.Contains(out, "survey.md:296: warning: CML G2-03, visit 2026-11-18: reading 1.58 is about a tenth") || !strings.Contains(out, "wrote "+filepath.Join(dir, "survey.md")) {
+	if !strings.Contains(out, "survey.md:297: warning: CML G2-03, visit 2026-11-18: reading 1.58 is about a tenth") || !strings.Contains(out, "wrote "+filepath.Join(dir, "survey.md")) {
 		t.Errorf("import output:\n%s", out)
 	}
 }
