@@ -169,8 +169,9 @@ func (d *doc) summary() {
 				r := g.Result
 				row[2] = g.CML.ID
 				row[3] = d.u.thick(r.ThicknessMM) + " / " + d.u.thick(c.Design.RequiredMM)
-				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), status(r)
-				st = rowStyle{bold: urgent(r), shade: urgent(r)}
+				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), status(r)+localStatus(g)
+				u := urgent(r) || localUrgent(g)
+				st = rowStyle{bold: u, shade: u}
 			}
 			rows = append(rows, row)
 			styles = append(styles, st)

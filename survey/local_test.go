@@ -152,7 +152,7 @@ func TestLocalDamageProblems(t *testing.T) {
 		{"bad area unit", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 acre\n  - total area: 9 m2\n" + table, `survey.md:13: pits: sample area: "1 acre": unknown area unit`, false},
 		{"too few pits", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "survey.md:11: pits: 2 pit-depth samples", false},
 		{"unknown input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n  - total area: 9 m2\n  - colour: red\n" + table, `survey.md:15: pits: "colour" is not an input`, false},
-		{"pressure without unit", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 2\n  - length: 50\n  - SMYS: 241\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:15: corroded area: smys: "241": give the unit`, false},
+		{"pressure without unit", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 2\n  - length: 50\n  - SMYS: 241\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:15: corroded area: SMYS: "241": give the unit`, false},
 		{"too deep is repair, not an error", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 7\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "", false},
 		{"depth beyond wall", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 9\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "survey.md:11: corroded area: the depth must be at least 0 and less than the wall", false},
 		{"limit without engineer", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of Sx\n" + table, "survey.md:13: member: allowed loss: name the engineer", false},
@@ -217,5 +217,25 @@ func TestReadmeLocalSnippets(t *testing.T) {
 	}
 	if n != 5 {
 		t.Errorf("%d local-damage snippets in README, want 5", n)
+	}
+}
+
+// A survey in inches: bare numbers are inches and inch rates. API 653
+// §4.4.7 with RT_bc 0.180 in, RT_ip 0.200 in, StP_r 0.004 in/y, UP_r 0.006
+// in/y, Or 8 y: MRT = 0.100 in, at the 0.10 in limit of Table 4.4.
+func TestLocalDamageInches(t *testing.T) {
+	src := "---\ntitle: x\nsite: y\ninspector: z\ndate: 2026-11-18\nunits: in\n---\n## Floor\n\n- nominal: 0.25\n- required: 0.1\n" +
+		"- bottom pitting: API 653\n  - bottom side remaining: 0.180\n  - product side remaining: 0.200\n  - product side rate: 0.004\n" +
+		"  - underside rate: 6 mpy\n  - interval: 8 years\n  - release prevention barrier: no\n" +
+		"\n| CML | 2026-11-18 |\n|---|---|\n| F-1 | 0.2 |\n"
+	s, problems := ParseChecklist("survey.md", []byte(src))
+	problems = append(problems, ComputeRequired(s)...)
+	problems = append(problems, ComputeLocal(s)...)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	b := s.Assets[0].Components[0].Design.Local.Assessments[0].Bottom
+	if math.Abs(b.MRTMM-0.100*25.4) > 1e-9 || math.Abs(b.LimitMM-2.54) > 1e-12 || !b.Pass || math.Abs(*b.MaxIntervalY-8) > 1e-9 {
+		t.Errorf("bottom in inches: %+v", b)
 	}
 }

@@ -43,17 +43,26 @@ func (lr *localReader) value(name string, need bool, parse func(string) (float64
 	in, ok := lr.find(name)
 	if !ok {
 		if need {
-			lr.errorf(lr.w.Line, "give %s", name)
+			lr.errorf(lr.w.Line, "give %s", label(name))
 		}
 		return 0, false
 	}
 	v, used, err := parse(in.Value)
 	if err != nil {
-		lr.errorf(in.Line, "%s: %v", name, err)
+		lr.errorf(in.Line, "%s: %v", label(name), err)
 		return 0, false
 	}
-	lr.inputs = append(lr.inputs, required.Input{Name: name, Written: in.Value, Used: used})
+	lr.inputs = append(lr.inputs, required.Input{Name: label(name), Written: in.Value, Used: used})
 	return v, true
+}
+
+// label is an input's name as the report and messages print it.
+func label(name string) string {
+	switch name {
+	case "smys", "maop":
+		return strings.ToUpper(name)
+	}
+	return name
 }
 
 // length reads a length or thickness: a bare number is in the survey's units.
