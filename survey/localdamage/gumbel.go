@@ -5,8 +5,6 @@ import (
 	"fmt"
 	"math"
 	"slices"
-
-	"gonum.org/v1/gonum/stat"
 )
 
 // GumbelFit is a largest-extreme-value (Gumbel) distribution fitted to sample
@@ -62,8 +60,28 @@ func FitLeastSquares(maxima []float64) (GumbelFit, error) {
 	for i := range x {
 		y[i] = -math.Log(-math.Log(PlottingPosition(i+1, len(x))))
 	}
-	intercept, slope := stat.LinearRegression(y, x, nil, false)
+	intercept, slope := leastSquares(y, x)
 	return GumbelFit{Method: "least squares, plotting position i/(n+1)", Location: intercept, Scale: slope}, nil
+}
+
+// leastSquares is the ordinary least-squares line of y on x: y = a + b·x.
+func leastSquares(x, y []float64) (a, b float64) {
+	mx, my := mean(x), mean(y)
+	var sxy, sxx float64
+	for i := range x {
+		sxy += (x[i] - mx) * (y[i] - my)
+		sxx += (x[i] - mx) * (x[i] - mx)
+	}
+	b = sxy / sxx
+	return my - b*mx, b
+}
+
+func mean(x []float64) float64 {
+	s := 0.0
+	for _, v := range x {
+		s += v
+	}
+	return s / float64(len(x))
 }
 
 // FitMaximumLikelihood fits the Gumbel distribution by maximum likelihood
@@ -76,7 +94,7 @@ func FitMaximumLikelihood(maxima []float64) (GumbelFit, error) {
 	}
 	x := maxima
 	m := slices.Min(x)
-	mean := stat.Mean(x, nil)
+	avg := mean(x)
 	weighted := func(a float64) (wmean, sumE float64) {
 		sxe := 0.0
 		for _, v := range x {
@@ -86,7 +104,7 @@ func FitMaximumLikelihood(maxima []float64) (GumbelFit, error) {
 		}
 		return sxe / sumE, sumE
 	}
-	g := func(a float64) float64 { w, _ := weighted(a); return a - mean + w }
+	g := func(a float64) float64 { w, _ := weighted(a); return a - avg + w }
 	// g < 0 as α → 0 (the weighted mean tends to the minimum), g > 0 for α
 	// large (the weighted mean tends to the mean): a root lies between.
 	spread := slices.Max(x) - m

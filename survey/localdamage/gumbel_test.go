@@ -3,8 +3,10 @@ package localdamage
 import (
 	"math"
 	"math/rand/v2"
+	"slices"
 	"testing"
 
+	"gonum.org/v1/gonum/stat"
 	"gonum.org/v1/gonum/stat/distuv"
 )
 
@@ -43,8 +45,18 @@ func TestGumbelFitsDerived(t *testing.T) {
 	}
 }
 
-// Our quantile and CDF agree with gonum's distuv.GumbelRight (Mu = λ, Beta = α).
+// Our quantile and CDF agree with gonum's distuv.GumbelRight (Mu = λ, Beta =
+// α), and the least-squares line with gonum's stat.LinearRegression.
 func TestGumbelAgainstGonum(t *testing.T) {
+	x := slices.Sorted(slices.Values(tenMaxima))
+	y := make([]float64, len(x))
+	for i := range x {
+		y[i] = -math.Log(-math.Log(PlottingPosition(i+1, len(x))))
+	}
+	wantLoc, wantScale := stat.LinearRegression(y, x, nil, false)
+	if ls, _ := FitLeastSquares(tenMaxima); !near(ls.Location, wantLoc, 1e-12) || !near(ls.Scale, wantScale, 1e-12) {
+		t.Errorf("least squares λ %v α %v, gonum %v %v", ls.Location, ls.Scale, wantLoc, wantScale)
+	}
 	for _, fit := range []func([]float64) (GumbelFit, error){FitLeastSquares, FitMaximumLikelihood} {
 		g, err := fit(tenMaxima)
 		if err != nil {
