@@ -28,6 +28,7 @@ func FuzzRenderChecklist(f *testing.F) {
 	f.Fuzz(func(t *testing.T, src []byte) {
 		s, problems := survey.ParseChecklist("survey.md", src)
 		problems = append(problems, survey.ComputeRequired(s)...)
+		problems = append(problems, survey.ComputeLocal(s)...)
 		if problems.HasErrors() {
 			return
 		}
