@@ -176,7 +176,7 @@ func (lr *localReader) pits() *LocalAssessment {
 	la.Steps = append(la.Steps, life.Steps...)
 	la.Limit = "the deepest pit estimate reaches the required thickness"
 	switch {
-	case reqMM > 0 && life.LigamentMM <= reqMM:
+	case life.LigamentMM <= reqMM: // reqMM is 0 when none is known: a pit through the wall
 		zero := 0.0
 		la.LifeY = &zero
 	case life.TimeToRequiredY != nil:
