@@ -239,3 +239,16 @@ func TestLocalDamageInches(t *testing.T) {
 		t.Errorf("bottom in inches: %+v", b)
 	}
 }
+
+// A deepest-pit estimate through the wall reaches its limit even with no
+// required thickness: ligament 1.0 − 2.264 mm < 0 (the ten maxima above).
+func TestPitThroughTheWall(t *testing.T) {
+	s, problems := parseLocal(t, "## C\n\n- nominal: 1.0\n- pits: Gumbel\n  - depths: 0.82 1.05 0.91 1.23 0.77 1.12 0.98 1.41 0.88 1.02\n"+
+		"  - sample area: 0.05 m2\n  - total area: 50 m2\n\n| CML | 2026-11-18 |\n|---|---|\n| A | 1.0 |\n")
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	if life, ok := s.Assets[0].Components[0].LocalLifeY(); !ok || life != 0 {
+		t.Errorf("life %v %v, want 0", life, ok)
+	}
+}
