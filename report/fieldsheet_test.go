@@ -28,8 +28,8 @@ func TestFieldSheetRows(t *testing.T) {
 			n++
 		}
 	}
-	if n != 30 {
-		t.Errorf("%d rows, want the demo checklist's 30 CMLs", n)
+	if n != 35 {
+		t.Errorf("%d rows, want the demo checklist's 35 CMLs", n)
 	}
 	r := rows["T1-04"]
 	if r.Previous == nil || r.Previous.Date.String() != "2019-09-12" || r.Previous.MM != 11.48 ||
@@ -73,7 +73,7 @@ func TestFieldSheetCSVAndXLSX(t *testing.T) {
 			}
 		}
 	}
-	if !found || len(recs) != 31 {
+	if !found || len(recs) != 36 {
 		t.Errorf("%d CSV records", len(recs))
 	}
 

@@ -29,6 +29,7 @@ func FuzzRenderChecklist(f *testing.F) {
 		s, problems := survey.ParseChecklist("survey.md", src)
 		problems = append(problems, survey.ComputeRequired(s)...)
 		problems = append(problems, survey.ComputeElectro(s)...)
+		problems = append(problems, survey.ComputeLocal(s)...)
 		if problems.HasErrors() {
 			return
 		}

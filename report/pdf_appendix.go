@@ -25,6 +25,9 @@ func (d *doc) methods() error {
 	d.heading(0, "Appendix B — Methods")
 	d.markdown(text)
 	d.electroMethods()
+	if err := d.localMethods(); err != nil { // pdf_local.go
+		return err
+	}
 	d.heading(1, "Settings used for this report")
 	tmpl := "built in"
 	if d.opts.Templates.Override != "" {

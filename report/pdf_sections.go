@@ -170,8 +170,9 @@ func (d *doc) summary() {
 				r := g.Result
 				row[2] = g.CML.ID
 				row[3] = d.u.thick(r.ThicknessMM) + " / " + d.u.thick(c.Design.RequiredMM)
-				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), status(r)
-				st = rowStyle{bold: urgent(r), shade: urgent(r)}
+				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), status(r)+localStatus(g)
+				u := urgent(r) || localUrgent(g)
+				st = rowStyle{bold: u, shade: u}
 			}
 			rows = append(rows, row)
 			styles = append(styles, st)
@@ -232,11 +233,11 @@ func (d *doc) ranked() {
 		rows[i] = []string{
 			strconv.Itoa(it.Rank), it.Asset.Name + " / " + it.Component.Name, it.CML.ID,
 			d.u.thick(r.ThicknessMM), d.u.thick(it.Component.Design.RequiredMM), d.u.rate(r.RateMMPerY),
-			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, status(r), flagsText(r.Flags),
+			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, status(r) + localStatus(it), flagsText(r.Flags),
 		}
 	}
 	d.table(cols, rows, func(i int) rowStyle {
-		u := urgent(d.items[i].Result)
+		u := urgent(d.items[i].Result) || localUrgent(d.items[i])
 		return rowStyle{bold: u, shade: u}
 	}, smallSize)
 }

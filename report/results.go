@@ -24,8 +24,10 @@ type Results struct {
 	Actions       []ActionInfo   `json:"actions"` // the register of actions, by due date
 	// Electro holds coupons, probes, CP test points, anodes and coatings
 	// (electro_results.go); CPFailing the test points failing at their latest visit.
-	Electro   []ElectroComponent `json:"electro"`
-	CPFailing []FailingPointJS   `json:"cp_failing_points"`
+	Electro     []ElectroComponent `json:"electro"`
+	CPFailing   []FailingPointJS   `json:"cp_failing_points"`
+	Grids       []GridResult       `json:"grids"`        // grids of readings (results_local.go)
+	LocalDamage []LocalResult      `json:"local_damage"` // local-damage assessments per component
 }
 
 // PhotoInfo is one photo: when and where it was taken and where it was placed.
@@ -132,6 +134,10 @@ type Item struct {
 	// RateGoverning: which of wall, coupon and probe rate governs, and why
 	// (electro_results.go); null without coupons or probes.
 	RateGoverning *RateGoverning `json:"rate_governing"`
+	// LocalDamageLifeY is the shortest life of the component's local-damage
+	// assessments (0: limit reached); LocalDamage their results in one line.
+	LocalDamageLifeY *float64 `json:"local_damage_life_y"`
+	LocalDamage      string   `json:"local_damage"`
 }
 
 // BreachYear is the probability of reaching the required thickness by a date.
@@ -212,8 +218,10 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 				item.Breach[j] = BreachYear{By: b.By[j].Format(dateLayout), Probability: *round(&p, 6)}
 			}
 		}
+		item.LocalDamageLifeY, item.LocalDamage = localOfItem(it.Component)
 		r.Items = append(r.Items, item)
 	}
+	r.Grids, r.LocalDamage = localResults(s)
 	for _, ph := range s.Photos {
 		pl := ph.Placement
 		info := PhotoInfo{File: ph.Name, Orientation: ph.Orientation, Asset: pl.Asset, Component: pl.Component, CML: pl.CML,

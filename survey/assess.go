@@ -76,7 +76,7 @@ func inputFor(loc Located, visits []Visit, latest time.Time) wallloss.Input {
 }
 
 func (a *Assessed) ranked() wallloss.Ranked {
-	return wallloss.RankedOf(&a.Result, int(a.Component.Design.Consequence), a.CML.ID)
+	return withLocalDamage(a.Component, wallloss.RankedOf(&a.Result, int(a.Component.Design.Consequence), a.CML.ID))
 }
 
 // LatestVisit is the newest visit date found in any reading table.

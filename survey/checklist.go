@@ -339,6 +339,9 @@ func (r *checklistReader) list(l *ast.List) {
 		for c := item.FirstChild(); c != nil; c = c.NextSibling() {
 			switch c := c.(type) {
 			case *ast.List:
+				if r.localInputs(c) {
+					continue
+				}
 				if r.comp != nil && r.comp.Design.RequiredMethod != "" && c.PreviousSibling() != nil &&
 					r.lineOf(c.PreviousSibling()) == r.comp.Design.Lines["required"] {
 					r.methodInputs(c)

@@ -94,8 +94,8 @@ func TestParseDemo(t *testing.T) {
 	if s.Title == "" || s.Units != MM || s.Date.Format("2006-01-02") != "2026-11-18" {
 		t.Errorf("front matter: %q %q %v", s.Title, s.Units, s.Date)
 	}
-	if len(s.Assets) != 7 || len(s.AllCMLs()) != 30 { // 4 assets and 28 CMLs, then the electro demo's 3 and 2
-		t.Fatalf("%d assets, %d CMLs; want 7 and 30", len(s.Assets), len(s.AllCMLs()))
+	if len(s.Assets) != 8 || len(s.AllCMLs()) != 35 { // 4 assets and 28 CMLs, the electro demo's 3 and 2, local damage's 1 and 5
+		t.Fatalf("%d assets, %d CMLs; want 8 and 35", len(s.Assets), len(s.AllCMLs()))
 	}
 	byID := map[string]Located{}
 	for _, l := range s.AllCMLs() {
@@ -297,7 +297,8 @@ func TestParseAmount(t *testing.T) {
 // readChecklist reads a checklist and computes its required thicknesses, as Load does.
 func readChecklist(file string, src []byte) (*Survey, ProblemList) {
 	s, problems := ParseChecklist(file, src)
-	return s, append(problems, ComputeRequired(s)...)
+	problems = append(problems, ComputeRequired(s)...)
+	return s, append(problems, ComputeLocal(s)...)
 }
 
 // wantProblem fails unless a problem starts with want.

@@ -68,6 +68,7 @@ func loadFolder(dir string, opt Options) (*Survey, ProblemList) {
 	problems = append(problems, applyScope(s)...)
 	problems = append(problems, ComputeRequired(s)...)
 	problems = append(problems, ComputeElectro(s)...)
+	problems = append(problems, ComputeLocal(s)...)
 	s.Dir, s.Source = dir, src
 	photos, skipped, photoProblems := ScanPhotos(dir, opt.MaxMegapixels)
 	s.Photos, s.Skipped = photos, skipped

@@ -103,6 +103,7 @@ type Design struct {
 	Instrument string        // serial of the gauge used (instrument:), "" when not named
 	Repairs    []RepairEvent // repairs done between visits (repaired:), oldest first
 	Electro    *Electro      // coupons, probes, CP, anodes, coating; nil when none
+	Local      *LocalDamage  // grids, pits, corroded area, member; nil when none is written
 }
 
 // MethodInput is one `name: value` item under a `required:` method, as written.

@@ -32,6 +32,9 @@ type tableColumn struct {
 }
 
 func (r *checklistReader) table(t *tableBlock) {
+	if r.gridTable(t) {
+		return
+	}
 	header := t.rows[0]
 	headerLine := r.lines.line(header.Start)
 	if r.comp == nil {

@@ -362,7 +362,7 @@ func TestImportDryRunThenWrite(t *testing.T) {
 		t.Errorf("survey.md.orig was overwritten")
 	}
 	// 1.58 against G2-03's nominal 16.0 and the component's readings: a decimal slip warned about.
-	if !strings.Contains(out, "survey.md:256: warning: CML G2-03, visit 2026-11-18: reading 1.58 is about a tenth") || !strings.Contains(out, "wrote "+filepath.Join(dir, "survey.md")) {
+	if !strings.Contains(out, "survey.md:338: warning: CML G2-03, visit 2026-11-18: reading 1.58 is about a tenth") || !strings.Contains(out, "wrote "+filepath.Join(dir, "survey.md")) {
 		t.Errorf("import output:\n%s", out)
 	}
 }
@@ -432,7 +432,7 @@ func TestImportColumnMap(t *testing.T) {
 func TestSheetCommand(t *testing.T) {
 	out := filepath.Join(t.TempDir(), "sheet.pdf")
 	code, stdout, errOut := runCLI(t, "sheet", "../../testdata/demo", "-o", out, "--today", "2027-03-01")
-	if code != exitOK || !strings.Contains(stdout, "30 CMLs, thicknesses projected to 2027-03-01") {
+	if code != exitOK || !strings.Contains(stdout, "35 CMLs, thicknesses projected to 2027-03-01") {
 		t.Fatalf("sheet: exit %d\n%s%s", code, stdout, errOut)
 	}
 	if code, _, errOut := runCLI(t, "sheet", "../../testdata/demo", "-o", filepath.Join(t.TempDir(), "sheet.md")); code != exitUsage || !strings.Contains(errOut, "written as .pdf, .xlsx or .csv") {

@@ -79,11 +79,14 @@ func Candidates(source string, items []*survey.Assessed, costs Costs) ([]*Candid
 		}
 		c.CMLs = append(c.CMLs, it)
 		r := it.Result
-		if r.Class == wallloss.AtOrBelowRequired {
+		if l, ok := it.Component.LocalLifeY(); r.Class == wallloss.AtOrBelowRequired || ok && l <= 0 {
 			c.Mandatory = true
 		}
 		if r.Retirement != nil && (c.Deadline == nil || r.Retirement.Before(*c.Deadline)) {
 			c.Deadline = r.Retirement
+		}
+		if d := localDeadline(it.Component); d != nil && (c.Deadline == nil || d.Before(*c.Deadline)) {
+			c.Deadline = d // local damage reaches its limit first (local.go)
 		}
 	}
 	return out, missing
@@ -120,7 +123,7 @@ func (c *Candidate) RiskAt(t time.Time) (before, after int) {
 	cons := ConsequenceLevel(c.Component.Design.Consequence)
 	for _, it := range c.CMLs {
 		r := it.Result
-		before = max(before, int(LikelihoodOfLife(lifeAt(r, t)))*cons)
+		before = max(before, int(LikelihoodOfLife(withLocalDamage(c.Component, lifeAt(r, t), t)))*cons)
 		after = max(after, int(LikelihoodOfLife(c.lifeAfterRepair(r)))*cons)
 	}
 	return before, after

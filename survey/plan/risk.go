@@ -100,7 +100,11 @@ func (r Risk) Level() string {
 
 // RiskOf is the risk of an assessed CML.
 func RiskOf(it *survey.Assessed) Risk {
-	return Risk{Likelihood: LikelihoodOf(it.Result), Consequence: ConsequenceLevel(it.Component.Design.Consequence)}
+	life := lifeOf(it.Result)
+	if l, ok := it.Component.LocalLifeY(); ok && !(life <= l) {
+		life = l // the component's local damage is more urgent than the wall
+	}
+	return Risk{Likelihood: LikelihoodOfLife(life), Consequence: ConsequenceLevel(it.Component.Design.Consequence)}
 }
 
 // Matrix counts CMLs per cell: [likelihood-1][consequence-1].

@@ -84,6 +84,9 @@ func mandatoryReason(c *Candidate, v valuation) string {
 				return fmt.Sprintf("CML %s at or below required (%.2f mm, required %.2f mm)", it.CML.ID, *r.ThicknessMM, *r.RequiredMM())
 			}
 		}
+		if why := localReason(c, v); why != "" {
+			return why
+		}
 		return "at or below required"
 	}
 	var id string
@@ -92,6 +95,9 @@ func mandatoryReason(c *Candidate, v valuation) string {
 			id = "CML " + it.CML.ID + " "
 			break
 		}
+	}
+	if why := localReason(c, v); id == "" && why != "" {
+		return why
 	}
 	return fmt.Sprintf("%sretires %s (plan year %d)", id, c.Deadline.Format("2006-01-02"), deadlineYear(v.start, *c.Deadline))
 }
