@@ -20,13 +20,14 @@ type Kind string
 // Kinds of action. The id of a computed action is its kind's prefix and its
 // subject (see Action.ID).
 const (
-	BelowRequired    Kind = "at or below required" // REQ-<CML>
-	NextInspection   Kind = "next inspection"      // INSP-<hash of asset, component>
-	PlannedRepair    Kind = "planned repair"       // REP-<hash of asset, component>
-	ScopeNotDone     Kind = "scope not done"       // SCOPE-<hash of asset, component, item>
-	ConfirmRate      Kind = "confirm rate"         // RATE-<CML>
-	ProtectionNotMet Kind = "protection not met"   // CP-<hash of asset, component, test point>
-	Written          Kind = "inspector's action"   // as written, or W-<hash>
+	BelowRequired    Kind = "at or below required"      // REQ-<CML>
+	NextInspection   Kind = "next inspection"           // INSP-<hash of asset, component>
+	PlannedRepair    Kind = "planned repair"            // REP-<hash of asset, component>
+	ScopeNotDone     Kind = "scope not done"            // SCOPE-<hash of asset, component, item>
+	ConfirmRate      Kind = "confirm rate"              // RATE-<CML>
+	ProtectionNotMet Kind = "protection not met"        // CP-<hash of asset, component, test point>
+	LocalLimit       Kind = "local damage at its limit" // LOCAL-<hash of asset, component, design key>
+	Written          Kind = "inspector's action"        // as written, or W-<hash>
 )
 
 // Priority orders actions of the same due date; Immediate is the most urgent.
@@ -144,6 +145,9 @@ func Register(in Input) []Action {
 	}
 	for loc := range componentsOf(s) {
 		c := loc.Component
+		if life, ok := c.LocalLifeY(); ok && life <= 0 {
+			below[c] = true // the local-damage action below stands for its inspection
+		}
 		due := s.Date.AddDate(SoonYears, 0, 0)
 		if it := next[c]; it != nil && !below[c] {
 			due = *it.Result.NextInspection
@@ -159,6 +163,19 @@ func Register(in Input) []Action {
 			})
 		} else if it != nil {
 			due = *it.Result.NextInspection
+		}
+		if c.Design.Local != nil {
+			for _, a := range c.Design.Local.Assessments {
+				if a.LifeY == nil || *a.LifeY > 0 {
+					continue
+				}
+				out = append(out, Action{
+					ID: "LOCAL-" + hash(loc.Asset.Name, c.Name, a.Key), Kind: LocalLimit, Priority: Immediate, Due: s.Date,
+					Asset: loc.Asset.Name, Component: c.Name,
+					Reason: fmt.Sprintf("%s: %s; repair, re-rate or take out of service", a.Method, plainText(a.Result)),
+					Rule:   "local damage at its limit is acted on at once", File: c.File, Line: a.Line,
+				})
+			}
 		}
 		for _, sc := range c.Scope {
 			if sc.Done {

@@ -166,3 +166,58 @@ func TestFailingTestPointsBecomeActions(t *testing.T) {
 		t.Errorf("not determined: %v %q", cp[1].Priority, cp[1].Reason)
 	}
 }
+
+// A member whose section loss is past the responsible engineer's limit is an
+// immediate action of its own, and stands for the component's inspection.
+// The I section (parallel-axis theorem, by hand): 300 × 20 flanges, 560 × 12
+// web; bottom flange 20 → 16 mm loses 6.41 % of the area, past a 5 % limit.
+func TestLocalDamageAtItsLimit(t *testing.T) {
+	src := `---
+title: Member
+site: Yard
+date: 2026-06-01
+inspector: Test
+units: mm
+---
+# Bridge
+
+## Girder
+
+- nominal: 20
+- required: 15
+- member: I
+  - depth: 600 mm
+  - top flange: 300 x 20
+  - web: 12
+  - bottom flange: 300 x 20
+  - measured bottom flange: 16
+  - allowed loss: 5 % of area
+  - set by: A. Engineer, structures
+
+| CML | 2026-06-01 |
+|---|---|
+| G-1 | 16 |
+`
+	s, problems := survey.ParseChecklist("survey.md", []byte(src))
+	problems = append(problems, survey.ComputeRequired(s)...)
+	if problems = append(problems, survey.ComputeLocal(s)...); problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	items := survey.Assess(s, wallloss.DefaultPolicy)
+	as := Register(Input{Survey: s, Items: items, Changes: survey.Changes(s, items, survey.IndexPhotos(s), wallloss.DefaultPolicy, 25)})
+	var local, insp int
+	for _, a := range as {
+		switch a.Kind {
+		case LocalLimit:
+			local++
+			if a.Priority != Immediate || !a.Due.Equal(s.Date) || a.Line != 14 || !strings.Contains(a.Reason, "EXCEEDED") {
+				t.Errorf("local limit action %+v", a)
+			}
+		case NextInspection:
+			insp++
+		}
+	}
+	if local != 1 || insp != 0 {
+		t.Errorf("%d local-limit and %d inspection actions, want 1 and 0", local, insp)
+	}
+}

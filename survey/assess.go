@@ -27,7 +27,9 @@ func Assess(s *Survey, p wallloss.Policy) []*Assessed {
 	block := make([]Assessed, 0, s.CMLCount())
 	for loc := range s.CMLs() {
 		in := inputFor(loc, loc.CML.Visits, latest)
-		block = append(block, Assessed{Asset: loc.Asset, Component: loc.Component, CML: loc.CML, Result: wallloss.Assess(in, p)})
+		r := wallloss.Assess(in, p)
+		nextByLocalDamage(loc.Component, &r)
+		block = append(block, Assessed{Asset: loc.Asset, Component: loc.Component, CML: loc.CML, Result: r})
 	}
 	// Sort compact keys, not the results: checklist positions break ties.
 	type entry struct {

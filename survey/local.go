@@ -256,6 +256,31 @@ func (c *Component) LocalLifeAt(t time.Time) (float64, bool) {
 	return max(life-wallloss.YearsBetween(c.Design.Local.Date, t), 0), true
 }
 
+// nextByLocalDamage brings a CML's next inspection forward to what its
+// component's local-damage assessments allow, counted from their date, where
+// that is sooner than the wall's date: now when a limit is reached; the
+// longest interval for API 653 §4.4.7 bottom pitting (the standard's own
+// interval); half the life for the others (the half-life rule of API 570
+// §7.1.1 and API 510 §7.1.1 applied to the local-damage life).
+func nextByLocalDamage(c *Component, r *wallloss.Result) {
+	if c.Design.Local == nil || r.Class == wallloss.AtOrBelowRequired {
+		return
+	}
+	for _, a := range c.Design.Local.Assessments {
+		if a.LifeY == nil || math.IsInf(*a.LifeY, 1) {
+			continue
+		}
+		life, years := max(*a.LifeY, 0), *a.LifeY/2
+		if a.Bottom != nil {
+			years = *a.LifeY
+		}
+		next := wallloss.AddYears(c.Design.Local.Date, max(years, 0))
+		if r.NextInspection == nil || next.Before(*r.NextInspection) {
+			r.NextInspection, r.NextBasis = &next, wallloss.Basis{Kind: wallloss.BasisLocalDamage, Years: life}
+		}
+	}
+}
+
 // withLocalDamage ranks a CML by the more urgent of its wall result and its
 // component's local-damage life.
 func withLocalDamage(c *Component, k wallloss.Ranked) wallloss.Ranked {

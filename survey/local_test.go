@@ -6,6 +6,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 
 	"github.com/lossline/lossline/survey/wallloss"
 )
@@ -250,5 +251,35 @@ func TestPitThroughTheWall(t *testing.T) {
 	}
 	if life, ok := s.Assets[0].Components[0].LocalLifeY(); !ok || life != 0 {
 		t.Errorf("life %v %v, want 0", life, ok)
+	}
+}
+
+// A CML's next inspection comes no later than its component's local damage
+// allows: the pipe's wall alone would wait, but ASME B31G-2012 with a depth
+// growth rate leaves a life L, and the half-life rule (API 570 §7.1.1) puts
+// the inspection at L/2; the floor's API 653 §4.4.7 bottom check allows its
+// longest interval (8 y) itself; a member past its limit is due now.
+func TestNextInspectionByLocalDamage(t *testing.T) {
+	body := strings.Replace(localBody, "  - safety factor: 1.39\n", "  - safety factor: 1.39\n  - depth growth rate: 0.2 mm/y\n", 1)
+	s, problems := parseLocal(t, body)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	date := s.Date
+	for _, it := range Assess(s, wallloss.DefaultPolicy) {
+		r := it.Result
+		var want time.Time
+		switch it.CML.ID {
+		case "P-1":
+			life := *it.Component.Design.Local.Assessments[0].LifeY
+			want = wallloss.AddYears(date, life/2)
+		case "F-1":
+			want = wallloss.AddYears(date, 8)
+		case "G-1":
+			want = date
+		}
+		if r.NextInspection == nil || !r.NextInspection.Equal(want) || (it.CML.ID != "G-1" && r.NextBasis.Kind != wallloss.BasisLocalDamage) {
+			t.Errorf("%s: next inspection %v (%s), want %s", it.CML.ID, r.NextInspection, r.NextBasis, want.Format(time.DateOnly))
+		}
 	}
 }

@@ -9,7 +9,8 @@ import (
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
-// What the demo has due: A-03 below required since its reading, the scope
+// What the demo has due: A-03 below required since its reading, girder
+// PB-1/G1's two CMLs due now (its section loss is past the engineer's limit), the scope
 // items not done since the survey, and T1-04's next inspection on
 // 2031-02-19 (half its 8.5-year remaining life, API 653 §6.3.3.2's RCA/(2N);
 // checked by hand in cmd/lossline's end-to-end test) only once the window
@@ -30,7 +31,7 @@ func TestDueOfDemo(t *testing.T) {
 			t.Errorf("%+v: only overdue items before 2027-06-01", d)
 		}
 	}
-	if n := len(ds); n != 6 || ds[0].Date != day("2026-11-18") || !slices.Contains(kinds, DueBelowRequired) {
+	if n := len(ds); n != 8 || ds[0].Date != day("2026-11-18") || !slices.Contains(kinds, DueBelowRequired) {
 		t.Fatalf("due by 2027-06-01: %+v", ds)
 	}
 	for _, d := range ds {

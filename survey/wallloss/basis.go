@@ -16,6 +16,7 @@ const (
 	BasisMRT                            // API 653 bottom: when the minimum remaining thickness is reached
 	BasisRemainingLife                  // a fixed interval, cut to the remaining life
 	BasisLimit                          // the rule's longest interval
+	BasisLocalDamage                    // the life of the component's local-damage assessments (halved except for API 653 bottom pitting; 0: now)
 )
 
 // Basis is what set the next inspection, with the years where they matter.
@@ -43,6 +44,11 @@ func (b Basis) String() string {
 		return "remaining life"
 	case BasisLimit:
 		return fmt.Sprintf("%g-year limit", b.Years)
+	case BasisLocalDamage:
+		if b.Years <= 0 {
+			return "local damage at its limit: now"
+		}
+		return fmt.Sprintf("local damage: life %.1f years", b.Years)
 	}
 	return ""
 }
