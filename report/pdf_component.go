@@ -85,7 +85,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		}
 		pairs = append(pairs, [2]string{"Governed by", gov})
 	}
-	pairs = append(pairs, localPairs(c)...) // pdf_local.go
+	pairs = append(pairs, localPairs(c)...)     // pdf_local.go
 	if len(c.CMLs) > 0 || des.Electro.Empty() { // a component of electro data only has no wall to describe
 		d.keyValues(append(pairs, d.componentRecords(c)...), 40)
 	}
