@@ -144,6 +144,7 @@ func (d *doc) cautions() error {
 func (d *doc) summary() {
 	d.newPage(false)
 	d.heading(0, "Summary")
+	d.summaryWords()
 	nComp := 0
 	for _, a := range d.s.Assets {
 		nComp += len(a.Components)
