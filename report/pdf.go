@@ -131,7 +131,7 @@ func (d *doc) sections() error {
 	if err := d.methods(); err != nil {
 		return err
 	}
-	d.warningsAppendix()
+	d.dataChecks()
 	return nil
 }
 

@@ -33,9 +33,9 @@ func (d *doc) changesSection() {
 	if h != nil {
 		var files []string
 		for _, e := range h.Earlier {
-			files = append(files, fmt.Sprintf("%s (%s, %s)", e.File, e.Date.Format(dateLayout), e.Inspector))
+			files = append(files, earlierSurveyWords(e))
 		}
-		intro += " Earlier surveys merged in: " + strings.Join(files, "; ") + "."
+		intro += " Earlier surveys merged in: " + strings.Join(files, "; ") + " (their files: " + dataChecksTitle + ")."
 	}
 	d.text(intro)
 	d.pdf.Ln(1)
@@ -91,18 +91,17 @@ func (d *doc) changesSection() {
 		d.heading(1, "CMLs no longer listed")
 		rows := make([][]string, len(h.Dropped))
 		for i, x := range h.Dropped {
-			rows[i] = []string{x.ID, x.Asset + " / " + x.Component, x.Last.Date.String() + ": " + d.u.u.Format(x.Last.Governing()),
-				fmt.Sprintf("%s:%d", x.Last.File, x.Last.Line)}
+			rows[i] = []string{x.ID, x.Asset + " / " + x.Component, x.Last.Date.String() + ": " + d.u.u.Format(x.Last.Governing())}
 		}
-		d.table([]column{{"CML", 16, "L"}, {"Asset / component", 60, "L"}, {"Last reading (" + string(d.u.u) + ")", 34, "L"}, {"Where", 70, "L"}}, rows, nil, smallSize)
+		d.table([]column{{"CML", 16, "L"}, {"Asset / component", 90, "L"}, {"Last reading (" + string(d.u.u) + ")", d.width() - 106, "L"}}, rows, nil, smallSize)
 	}
 	if len(h.DesignChanges) > 0 {
 		d.heading(1, "Design data that changed")
 		rows := make([][]string, len(h.DesignChanges))
 		for i, x := range h.DesignChanges {
-			rows[i] = []string{x.Asset + " / " + x.Component, x.Field, d.u.thick(&x.OldMM) + " → " + d.u.thick(&x.NewMM), fmt.Sprintf("%s:%d", x.OldFile, x.OldLine)}
+			rows[i] = []string{x.Asset + " / " + x.Component, x.Field, d.u.thick(&x.OldMM) + " → " + d.u.thick(&x.NewMM), d.surveyOfFile(x.OldFile)}
 		}
-		d.table([]column{{"Asset / component", 70, "L"}, {"Thickness", 20, "L"}, {"Before → now (" + string(d.u.u) + ")", 30, "L"}, {"Earlier value at", 60, "L"}}, rows, nil, smallSize)
+		d.table([]column{{"Asset / component", 70, "L"}, {"Thickness", 20, "L"}, {"Before → now (" + string(d.u.u) + ")", 30, "L"}, {"Earlier value from", 60, "L"}}, rows, nil, smallSize)
 	}
 	var pairs []photoShown
 	for _, it := range d.items {
@@ -121,4 +120,17 @@ func (d *doc) changesSection() {
 		d.heading(1, "Before and after")
 		d.photoGrid(pairs)
 	}
+}
+
+// surveyOfFile names the earlier survey read from file by its date and
+// inspector; the file itself is printed only in the data checks appendix.
+func (d *doc) surveyOfFile(file string) string {
+	if h := d.s.History; h != nil {
+		for _, e := range h.Earlier {
+			if e.File == file {
+				return earlierSurveyWords(e)
+			}
+		}
+	}
+	return "an earlier survey (see " + dataChecksTitle + ")"
 }

@@ -169,11 +169,8 @@ func (d *doc) unlinkedPhotos() {
 		d.photoGrid(shown)
 	}
 	if len(d.s.Skipped) > 0 {
-		d.heading(1, "Files in the photos folder not used")
-		rows := make([][]string, len(d.s.Skipped))
-		for i, s := range d.s.Skipped {
-			rows[i] = []string{s.Name, s.Reason}
-		}
-		d.table([]column{{"File", 70, "L"}, {"Why", d.width() - 70, "L"}}, rows, nil, smallSize)
+		d.pdf.Ln(2)
+		d.text(fmt.Sprintf("%s in the photos folder could not be used (listed with the reason in %s).",
+			map[bool]string{true: "1 file", false: fmt.Sprintf("%d files", len(d.s.Skipped))}[len(d.s.Skipped) == 1], dataChecksTitle))
 	}
 }
