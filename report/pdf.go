@@ -62,6 +62,8 @@ type doc struct {
 	landscape bool
 	photos    map[string]*photoEntry
 	warnings  survey.ProblemList
+	toc       *contents // the printed contents, filled at the end
+	figures   []figure  // the photos drawn, in order: figure i+1 is figures[i]
 }
 
 // photoEntry is a photo prepared once, however many CMLs show it.
@@ -120,6 +122,7 @@ func (d *doc) sections() error {
 		return err
 	}
 	d.summary()
+	d.reserveContents()
 	d.changesSection()
 	d.riskSection()
 	d.planSection()
@@ -128,10 +131,12 @@ func (d *doc) sections() error {
 		d.asset(a)
 	}
 	d.unlinkedPhotos()
+	d.photoIndex()
 	if err := d.methods(); err != nil {
 		return err
 	}
 	d.dataChecks()
+	d.writeContents()
 	return nil
 }
 
@@ -187,6 +192,7 @@ func (d *doc) need(h float64) {
 // heading writes a section heading and its outline entry. Level 0 starts a
 // new page.
 func (d *doc) heading(level int, text string) {
+	defer d.noteHeading(level, text)
 	switch level {
 	case 0:
 		d.font("B", 16)

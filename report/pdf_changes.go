@@ -103,21 +103,12 @@ func (d *doc) changesSection() {
 		}
 		d.table([]column{{"Asset / component", 70, "L"}, {"Thickness", 20, "L"}, {"Before → now (" + string(d.u.u) + ")", 30, "L"}, {"Earlier value from", 60, "L"}}, rows, nil, smallSize)
 	}
-	var pairs []photoShown
-	for _, it := range d.items {
-		c := d.f.Change(it.CML)
-		if len(c.PhotosBefore) == 0 || len(c.PhotosCurrent) == 0 {
-			continue
-		}
-		before, after := d.photos[c.PhotosBefore[0].Name+"@before"], d.photos[c.PhotosCurrent[0].Name]
-		if before == nil || after == nil {
-			continue
-		}
-		pairs = append(pairs, photoShown{entry: before, cml: it.CML.ID, label: "Before"}, photoShown{entry: after, cml: it.CML.ID, label: "Now"})
-	}
+	pairs := d.beforeAfterPairs()
 	if len(pairs) > 0 {
 		d.need(photoMaxH + 20)
 		d.heading(1, "Before and after")
+		d.text(fmt.Sprintf("The same CML at an earlier visit and now, side by side (%s).", d.figureRange(len(pairs))))
+		d.pdf.Ln(1)
 		d.photoGrid(pairs)
 	}
 }
@@ -133,4 +124,25 @@ func (d *doc) surveyOfFile(file string) string {
 		}
 	}
 	return "an earlier survey (see " + dataChecksTitle + ")"
+}
+
+// beforeAfterPairs are the CMLs with a photo at an earlier visit and now: the
+// earlier photo, then the current one.
+func (d *doc) beforeAfterPairs() []photoShown {
+	if d.s.History == nil {
+		return nil
+	}
+	var pairs []photoShown
+	for _, it := range d.items {
+		c := d.f.Change(it.CML)
+		if len(c.PhotosBefore) == 0 || len(c.PhotosCurrent) == 0 {
+			continue
+		}
+		before, after := d.photos[c.PhotosBefore[0].Name+"@before"], d.photos[c.PhotosCurrent[0].Name]
+		if before == nil || after == nil {
+			continue
+		}
+		pairs = append(pairs, photoShown{entry: before, cml: it.CML.ID, label: "Before"}, photoShown{entry: after, cml: it.CML.ID, label: "Now"})
+	}
+	return pairs
 }

@@ -107,6 +107,16 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		d.heading(2, "Notes")
 		d.notes(c.Notes)
 	}
+	if shown := d.componentPhotos(c); len(shown) > 0 {
+		d.need(photoMaxH + 20) // keep the heading with the first row
+		d.heading(2, "Photos: "+d.figureRange(len(shown)))
+		d.photoGrid(shown)
+	}
+}
+
+// componentPhotos are the photos a component's pages show: its CMLs' first,
+// then its own.
+func (d *doc) componentPhotos(c *survey.Component) []photoShown {
 	var shown []photoShown
 	for _, m := range c.CMLs {
 		for _, ph := range d.f.Photos.OfCML(m) {
@@ -120,11 +130,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 			shown = append(shown, photoShown{entry: e})
 		}
 	}
-	if len(shown) > 0 {
-		d.need(photoMaxH + 20) // keep the heading with the first row
-		d.heading(2, "Photos")
-		d.photoGrid(shown)
-	}
+	return shown
 }
 
 // derivation shows how a required thickness was computed: inputs, steps, source.

@@ -155,16 +155,16 @@ func (d *doc) summary() {
 	d.pdf.Ln(2)
 	u := string(d.u.u)
 	cols := []column{
-		{"Component", 50, "L"}, {"CMLs", 11, "R"}, {"Governing CML", 18, "L"},
-		{"Thickness / required (" + u + ")", 26, "R"}, {"Rate (" + d.u.rateUnit + ")", 15, "R"}, {"Remaining life (y)", 18, "R"},
-		{"Next inspection", 21, "L"}, {"Status", 21, "L"},
+		{"Asset / component", 58, "L"}, {"CMLs", 9, "R"}, {"Governing CML", 15, "L"},
+		{"Thickness / required (" + u + ")", 24, "R"}, {"Rate (" + d.u.rateUnit + ")", 13, "R"}, {"Remaining life (y)", 16, "R"},
+		{"Next inspection", 19, "L"}, {"Repair window", d.width() - 154, "L"},
 	}
+	var rows [][]string
+	var styles []rowStyle
 	for _, a := range d.s.Assets {
-		var rows [][]string
-		var styles []rowStyle
 		for _, c := range a.Components {
 			g := d.f.Governing(c)
-			row := []string{c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
+			row := []string{a.Name + " / " + c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
 			st := rowStyle{}
 			if g != nil {
 				r := g.Result
@@ -176,31 +176,9 @@ func (d *doc) summary() {
 			rows = append(rows, row)
 			styles = append(styles, st)
 		}
-		d.heading(2, a.Name)
-		d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
 	}
+	d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
 
-	d.heading(1, "Scope limitations")
-	var open [][]string
-	for _, a := range d.s.Assets {
-		for _, c := range a.Components {
-			if c.OutOfScope {
-				open = append(open, []string{a.Name + " / " + c.Name, "out of scope at this visit (front matter scope:): its results date from earlier visits"})
-			}
-			for _, it := range c.Scope {
-				if !it.Done {
-					open = append(open, []string{a.Name + " / " + c.Name, it.Text})
-				}
-			}
-		}
-	}
-	if len(open) == 0 {
-		d.text("Every item of the scope checklists was done.")
-	} else {
-		d.text("These items of the scope checklists were not done. The results do not cover them.")
-		d.pdf.Ln(1)
-		d.table([]column{{"Asset / component", 70, "L"}, {"Not done", d.width() - 70, "L"}}, open, nil, smallSize)
-	}
 	if len(d.s.Notes) > 0 {
 		d.heading(1, "Survey notes")
 		d.notes(d.s.Notes)

@@ -3,6 +3,7 @@ package report
 import (
 	"fmt"
 	"math"
+	"strconv"
 
 	"github.com/go-pdf/fpdf"
 
@@ -59,11 +60,16 @@ func (d *doc) sitePlan(a *survey.Asset) {
 		return
 	}
 	var photoNotes []string
+	figs := d.plannedFigures()
 	for _, ph := range d.s.Photos {
 		if ph.GPS != nil && ph.Placement.Asset == a.Name {
 			n := len(photoNotes) + 1
 			marks = append(marks, mark{at: *ph.GPS, label: fmt.Sprintf("P%d", n), photo: true})
-			note := fmt.Sprintf("P%d %s: %s", n, ph.Name, placedOn(ph.Placement))
+			fig := "not shown"
+			if f, ok := figs[ph.Name]; ok {
+				fig = "Figure " + strconv.Itoa(f)
+			}
+			note := fmt.Sprintf("P%d, %s: %s", n, fig, placedOn(ph.Placement))
 			if ph.Placement.DistanceM != nil {
 				note += fmt.Sprintf(" (%.0f m, %s)", *ph.Placement.DistanceM, ph.Placement.Basis)
 			}
