@@ -54,9 +54,9 @@ func (d *doc) changesSection() {
 				prev := it.CML.Visits[n-2]
 				before = prev.Date.String() + ": " + d.u.u.Format(prev.Governing())
 			}
-			window := status(r)
+			window := repairWindow(r)
 			if c.Previous != nil {
-				window = status(*c.Previous) + " → " + window
+				window = repairWindow(*c.Previous) + " → " + window
 			}
 			var words []string
 			for _, code := range c.Codes {
@@ -71,19 +71,6 @@ func (d *doc) changesSection() {
 			rows, func(i int) rowStyle { return styles[i] }, smallSize)
 	}
 
-	if len(withIntervals) > 0 {
-		d.heading(1, "Rate over each interval")
-		rows := make([][]string, len(withIntervals))
-		for i, c := range withIntervals {
-			var parts []string
-			for _, iv := range c.Intervals {
-				parts = append(parts, fmt.Sprintf("%s → %s: %s", iv.Start.Format(dateLayout), iv.End.Format(dateLayout), d.u.rate(&iv.RateMMPerY)))
-			}
-			rows[i] = []string{c.Item.CML.ID, strings.Join(parts, "\n"), d.u.rate(c.Item.Result.RateLongMMPerY)}
-		}
-		d.table([]column{{"CML", 16, "L"}, {"Interval: rate (" + d.u.rateUnit + "; negative where the wall read thicker)", 134, "L"},
-			{"Long-term (" + d.u.rateUnit + ")", 30, "R"}}, rows, nil, smallSize)
-	}
 	if h == nil {
 		return
 	}

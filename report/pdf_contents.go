@@ -123,3 +123,14 @@ func (d *doc) writeContents() {
 	p.SetPage(last)
 	d.font("", bodySize)
 }
+
+// chapter starts a chapter on portrait pages: on the current page when at
+// least minRoom mm are left on it, else on a new one, so that no page is left
+// with a few lines only because a chapter began.
+func (d *doc) chapter(minRoom float64) {
+	if d.landscape || !d.room(minRoom) {
+		d.newPage(false)
+		return
+	}
+	d.pdf.Ln(8)
+}

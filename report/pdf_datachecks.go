@@ -16,7 +16,7 @@ const dataChecksTitle = "Appendix D — Data checks"
 // file and line, the photo files not used, where the earlier values behind
 // the changes section were read, and where each setting came from.
 func (d *doc) dataChecks() {
-	d.newPage(false)
+	d.chapter(80)
 	d.heading(0, dataChecksTitle)
 	d.text("For the inspector's check of the data: the files this report was computed from, and the place of every " +
 		"warning and earlier value. The client pages state in words what these mean for the results.")

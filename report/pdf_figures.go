@@ -65,7 +65,7 @@ func (d *doc) photoIndex() {
 	if len(d.figures) == 0 {
 		return
 	}
-	d.newPage(false)
+	d.chapter(60)
 	d.heading(0, photoIndexTitle)
 	d.text("Every photo in this report, by figure number, with the page it is on. A photo shown under several CMLs, " +
 		"or before and after, has a figure each time.")

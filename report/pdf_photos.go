@@ -151,7 +151,7 @@ func (d *doc) caption(s photoShown, n int) string {
 // component: those placed on an asset only, the unplaced ones with the
 // reason, and the files skipped.
 func (d *doc) unlinkedPhotos() {
-	d.newPage(false)
+	d.chapter(photoMaxH + 50)
 	d.heading(0, "Appendix A — Photos not placed on a CML or component")
 	shown := d.unplacedPhotos()
 	if len(shown) == 0 {

@@ -128,7 +128,7 @@ func (d *doc) planSection() {
 		return
 	}
 	cur := d.f.Settings.Plan.Costs.Currency
-	d.newPage(false)
+	d.chapter(120)
 	d.heading(0, "Repair plan")
 	p := rp.Plan
 	budgets := p.Budgets

@@ -170,7 +170,7 @@ func (d *doc) summary() {
 				r := g.Result
 				row[2] = g.CML.ID
 				row[3] = d.u.thick(r.ThicknessMM) + " / " + d.u.thick(c.Design.RequiredMM)
-				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), status(r)
+				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), repairWindow(r)
 				st = rowStyle{bold: urgent(r), shade: urgent(r)}
 			}
 			rows = append(rows, row)
@@ -191,14 +191,14 @@ func (d *doc) ranked() {
 	d.heading(0, "Ranked list of CMLs")
 	d.text(fmt.Sprintf("Most urgent first: at or below required, then shortest remaining life; ties by consequence, then CML id. "+
 		"Thicknesses in %s, rates in %s (the governing rate, the larger of long- and short-term). Rows at or below "+
-		"required or under 5 years of remaining life are in bold and shaded; the status column says why.", d.u.u, d.u.rateUnit))
+		"required or under 5 years of remaining life are in bold and shaded; the repair window column says why.", d.u.u, d.u.rateUnit))
 	d.pdf.Ln(2)
 	u := string(d.u.u)
 	cols := []column{
 		{"Rank", 11, "R"}, {"Asset / component", 50, "L"}, {"CML", 15, "L"},
 		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit + ")", 16, "R"},
 		{"Remaining life (y)", 19, "R"}, {"Retirement date", 21, "L"}, {"Next inspection", 21, "L"},
-		{"Conse- quence", 17, "L"}, {"Status", 27, "L"}, {"Flags", 34, "L"},
+		{"Conse- quence", 17, "L"}, {"Repair window", 27, "L"}, {"Flags", 34, "L"},
 	}
 	rows := make([][]string, len(d.items))
 	for i, it := range d.items {
@@ -210,7 +210,7 @@ func (d *doc) ranked() {
 		rows[i] = []string{
 			strconv.Itoa(it.Rank), it.Asset.Name + " / " + it.Component.Name, it.CML.ID,
 			d.u.thick(r.ThicknessMM), d.u.thick(it.Component.Design.RequiredMM), d.u.rate(r.RateMMPerY),
-			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, status(r), flagsText(r.Flags),
+			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, repairWindow(r), flagsText(r.Flags),
 		}
 	}
 	d.table(cols, rows, func(i int) rowStyle {

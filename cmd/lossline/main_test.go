@@ -279,7 +279,7 @@ func TestEndToEndDemo(t *testing.T) {
 		"Required thickness: derivation", "API 653 §4.3.3.1", "ASME B31.3 §304.1.2", "Table 4.4", "set by M. Varga",
 		"API 570 Table 2, Class 1", "API 510", "fixed interval of 6 years", "ISO 9223", "(low ",
 		"no-measurable-loss", "estimate",
-		"Changes since the last visit", "CROSSED THE REQUIRED", "ACCELERATING", "Rate over each interval",
+		"Changes since the last visit", "CROSSED THE REQUIRED", "ACCELERATING",
 		"CMLs no longer listed", "G2-04", "Design data that changed", "Before and after", "Before: CML A-03", "Trend",
 		"the survey of 2022-05-10 by K. Lindqvist", "Figure 1. Before: CML A-03",
 		"Site plan", "equirectangular projection", "placed by position: nearest CML within the placement radius, 1 m",
