@@ -1,0 +1,159 @@
+package report
+
+import (
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// demoPages renders the demo and reads its pages back with poppler's
+// pdftotext (an independent reader), one string per page.
+func demoPages(t *testing.T) []string {
+	t.Helper()
+	if _, err := exec.LookPath("pdftotext"); err != nil {
+		if os.Getenv("LOSSLINE_REQUIRE_POPPLER") != "" {
+			t.Fatal("pdftotext not installed (poppler-utils)")
+		}
+		t.Skip("pdftotext not installed (poppler-utils)")
+	}
+	pdf, _, err := PDF(demo(t), testOptions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	file := filepath.Join(t.TempDir(), "report.pdf")
+	if err := os.WriteFile(file, pdf, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	text, err := exec.Command("pdftotext", "-layout", file, "-").Output()
+	if err != nil {
+		t.Fatal(err)
+	}
+	pages := strings.Split(string(text), "\f")
+	if pages[len(pages)-1] == "" || strings.TrimSpace(pages[len(pages)-1]) == "" {
+		pages = pages[:len(pages)-1]
+	}
+	return pages
+}
+
+// flat is text with every run of white space made one space.
+func flat(s string) string { return strings.Join(strings.Fields(s), " ") }
+
+var contentsRow = regexp.MustCompile(`^\s*(\S.*?)\s{2,}(\d+)\s*$`)
+
+// The demo read as a deliverable: the contents list every chapter at the page
+// it is on, page 2 opens with the summary in words, no file path or checklist
+// line shows before the data checks appendix, and the photo index gives each
+// figure's page.
+func TestDemoReadsAsADeliverable(t *testing.T) {
+	pages := demoPages(t)
+
+	// Contents: find the page, read its entries.
+	ci := -1
+	for i, p := range pages {
+		if strings.HasPrefix(strings.TrimSpace(p), "Contents") {
+			ci = i
+			break
+		}
+	}
+	if ci < 0 {
+		t.Fatal("no contents page")
+	}
+	type entry struct {
+		title string
+		page  int
+	}
+	var entries []entry
+	for _, line := range strings.Split(pages[ci], "\n")[1:] {
+		m := contentsRow.FindStringSubmatch(line)
+		if m == nil || strings.Contains(line, "page ") { // the footer
+			continue
+		}
+		n, _ := strconv.Atoi(m[2])
+		entries = append(entries, entry{m[1], n})
+	}
+	pageOf := map[string]int{}
+	last := 0
+	for _, e := range entries {
+		if e.page < last || e.page < 1 || e.page > len(pages) {
+			t.Errorf("contents: %q on page %d, out of order or beyond the %d pages", e.title, e.page, len(pages))
+			continue
+		}
+		last = e.page
+		if !strings.Contains(flat(pages[e.page-1]), e.title) {
+			t.Errorf("contents: %q is not on page %d", e.title, e.page)
+		}
+		if _, seen := pageOf[e.title]; !seen {
+			pageOf[e.title] = e.page
+		}
+	}
+	for _, chapter := range []string{"Summary", "Changes since the last visit", "Risk", "Ranked list of CMLs",
+		"Tank T-101", "Transfer line P-220", "Footbridge FB-2", "Air receiver V-3",
+		"Appendix A — Photos not placed on a CML or component", "Appendix B — Photo index",
+		"Appendix C — Methods", "Appendix D — Data checks"} {
+		if _, ok := pageOf[chapter]; !ok {
+			t.Errorf("contents lack %q", chapter)
+		}
+	}
+	if pageOf["Summary"] != 2 {
+		t.Errorf("summary on page %d, want 2", pageOf["Summary"])
+	}
+
+	// Page 2: the summary in words, naming the CML below required with its
+	// numbers, before any table.
+	p2 := flat(pages[1])
+	urgent := strings.Index(p2, "Urgent. CML A-03 on Transfer line P-220")
+	table := strings.Index(p2, "Asset / component")
+	if urgent < 0 || table < 0 || urgent > table {
+		t.Errorf("page 2 does not open with the summary in words naming A-03 before the table:\n%s", p2)
+	}
+	for _, want := range []string{"3.62 mm measured on 2026-11-18 against 3.80 mm required", "Due.", "Not done.", "Changed since the last visit."} {
+		if !strings.Contains(p2, want) {
+			t.Errorf("page 2 lacks %q", want)
+		}
+	}
+
+	// No file path or checklist line before the data checks appendix.
+	checks := pageOf["Appendix D — Data checks"]
+	internal := regexp.MustCompile(`\.md:\d+|survey\.md|lossline\.yaml|testdata/|\.HEIC`)
+	for i := 0; i < checks-1 && i < len(pages); i++ {
+		if i == ci {
+			continue
+		}
+		if m := internal.FindString(pages[i]); m != "" {
+			t.Errorf("page %d shows %q before the data checks appendix", i+1, m)
+		}
+	}
+	if checks > 0 && !internal.MatchString(strings.Join(pages[checks-1:], "")) {
+		t.Error("the data checks appendix shows no file or line")
+	}
+
+	// Photo index: every figure, in order, on the page it gives.
+	row := regexp.MustCompile(`^\s*(\d+)\s+\S.*?\s{2,}(\S+\.jpe?g)\s+(\d+)\s*$`)
+	start := pageOf["Appendix B — Photo index"]
+	n := 0
+	for i := start - 1; i >= 0 && i < len(pages) && i < pageOf["Appendix C — Methods"]; i++ {
+		for _, line := range strings.Split(pages[i], "\n") {
+			m := row.FindStringSubmatch(line)
+			if m == nil {
+				continue
+			}
+			fig, _ := strconv.Atoi(m[1])
+			pg, _ := strconv.Atoi(m[3])
+			n++
+			if fig != n {
+				t.Errorf("photo index: figure %d listed as number %d", fig, n)
+			}
+			if pg < 1 || pg > len(pages) || !strings.Contains(pages[pg-1], "Figure "+m[1]+". ") {
+				t.Errorf("photo index: figure %d (%s) is not on page %d", fig, m[2], pg)
+			}
+		}
+	}
+	captions := regexp.MustCompile(`Figure (\d+)\. `).FindAllString(strings.Join(pages, ""), -1)
+	if n == 0 || n != len(captions) {
+		t.Errorf("photo index lists %d figures, the pages caption %d", n, len(captions))
+	}
+}
