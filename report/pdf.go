@@ -62,8 +62,9 @@ type doc struct {
 	landscape bool
 	photos    map[string]*photoEntry
 	warnings  survey.ProblemList
-	toc       *contents // the printed contents, filled at the end
-	figures   []figure  // the photos drawn, in order: figure i+1 is figures[i]
+	toc       *contents           // the printed contents, filled at the end
+	figures   []figure            // the photos drawn, in order: figure i+1 is figures[i]
+	photoWarn map[string][]string // warnings about a photo file, by its path
 }
 
 // photoEntry is a photo prepared once, however many CMLs show it.

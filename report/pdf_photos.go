@@ -144,6 +144,22 @@ func (d *doc) caption(s photoShown, n int) string {
 			text += fmt.Sprintf(" (nearest CML %.0f m away)", *pl.DistanceM)
 		}
 	}
+	// A warning about the photo itself (its clock, its date) is said where
+	// the photo is, in words; its file and the warning's place are in the
+	// data checks appendix.
+	if d.photoWarn == nil {
+		d.photoWarn = map[string][]string{}
+		for _, w := range d.s.Problems {
+			if w.Line == 0 {
+				d.photoWarn[w.File] = append(d.photoWarn[w.File], w.Message)
+			}
+		}
+	}
+	if ph.Path != "" {
+		for _, m := range d.photoWarn[ph.Path] {
+			text += "\nNote: " + m
+		}
+	}
 	return text
 }
 

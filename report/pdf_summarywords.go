@@ -1,6 +1,7 @@
 package report
 
 import (
+	"fmt"
 	"strings"
 
 	"github.com/lossline/lossline/findings"
@@ -21,6 +22,7 @@ func (d *doc) summaryWords() {
 		lines []string
 	}{
 		{"Urgent.", w.Urgent}, {"Due.", w.Due}, {"Not done.", w.NotDone}, {"Changed since the last visit.", w.Changed},
+		{"Data checks.", d.warningWords()},
 	} {
 		if len(g.lines) == 0 {
 			continue
@@ -32,4 +34,18 @@ func (d *doc) summaryWords() {
 		p.Ln(lineH + 1.5)
 	}
 	p.Ln(1)
+}
+
+// warningWords says how many warnings reading the survey raised and where
+// they are listed; nothing when there are none.
+func (d *doc) warningWords() []string {
+	n := len(d.s.Problems) + len(d.warnings)
+	if n == 0 {
+		return nil
+	}
+	what := "1 warning; it is"
+	if n > 1 {
+		what = fmt.Sprintf("%d warnings; each is", n)
+	}
+	return []string{fmt.Sprintf("Reading the survey raised %s listed at its place in %s, for the inspector to check.", what, dataChecksTitle)}
 }
