@@ -204,9 +204,13 @@ func (f *Findings) notDoneWords() []string {
 			}
 		}
 	}
-	if len(items) == 0 {
+	switch {
+	case len(items) == 0:
 		out = append(out, "Every item of the scope checklists was done.")
-	} else {
+	case len(items) > 2*namesShown:
+		out = append(out, fmt.Sprintf("Not covered by the results: %s; and %d more items not done, each in its component's scope checklist.",
+			strings.Join(items[:2*namesShown], "; "), len(items)-2*namesShown))
+	default:
 		out = append(out, fmt.Sprintf("Not covered by the results: %s.", strings.Join(items, "; ")))
 	}
 	var stale []string

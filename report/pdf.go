@@ -65,6 +65,7 @@ type doc struct {
 	toc       *contents           // the printed contents, filled at the end
 	figures   []figure            // the photos drawn, in order: figure i+1 is figures[i]
 	photoWarn map[string][]string // warnings about a photo file, by its path
+	figPlan   map[string]int      // plannedFigures, computed once
 }
 
 // photoEntry is a photo prepared once, however many CMLs show it.

@@ -99,6 +99,9 @@ func (d *doc) writeContents() {
 	w := d.width()
 	for _, e := range entries {
 		if y+contentsLine > ph-bottomGap {
+			if page == c.first+c.pages-1 {
+				break // never onto a page that is not reserved; the outline lists everything
+			}
 			page++
 			p.SetPage(page)
 			y = margin

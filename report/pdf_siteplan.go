@@ -62,7 +62,10 @@ func (d *doc) sitePlan(a *survey.Asset) {
 		return
 	}
 	var photoNotes []string
-	figs := d.plannedFigures()
+	if d.figPlan == nil {
+		d.figPlan = d.plannedFigures()
+	}
+	figs := d.figPlan
 	for _, ph := range d.s.Photos {
 		if ph.GPS != nil && ph.Placement.Asset == a.Name {
 			n := len(photoNotes) + 1
