@@ -57,7 +57,12 @@ func (f *Findings) urgentWords(u WordUnits) []string {
 			soon = append(soon, it)
 		}
 	}
-	for _, it := range below {
+	for k, it := range below {
+		if k == namesShown {
+			out = append(out, fmt.Sprintf("%s also at or below their required thickness; they head the ranked list.",
+				count(len(below)-namesShown, "more CML is", "more CMLs are")))
+			break
+		}
 		r := it.Result
 		s := fmt.Sprintf("CML %s on %s / %s is at or below its required thickness: %s measured on %s against %s required",
 			it.CML.ID, it.Asset.Name, it.Component.Name, thick(u, r.ThicknessMM), date(r.CurrentDate), thick(u, r.RequiredMM()))
@@ -263,7 +268,7 @@ func (f *Findings) changedWords(u WordUnits) []string {
 		parts = append(parts, fmt.Sprintf("%s crossed the required thickness (%s)", count(len(crossed), "CML", "CMLs"), list(crossed)))
 	}
 	if len(accel) > 0 {
-		parts = append(parts, fmt.Sprintf("%s corroding faster than before: %s", count(len(accel), "CML is", "CMLs are"), strings.Join(accel, "; ")))
+		parts = append(parts, fmt.Sprintf("%s corroding faster than before: %s", count(len(accel), "CML is", "CMLs are"), list(accel)))
 	}
 	if len(shorter) > 0 {
 		parts = append(parts, fmt.Sprintf("%s moved into a shorter repair window under 10 years: %s", count(len(shorter), "CML", "CMLs"), list(shorter)))

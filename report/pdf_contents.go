@@ -45,7 +45,7 @@ func (d *doc) reserveContents() {
 	}
 	c.first, c.pages, c.top = d.pdf.PageNo(), 1, d.pdf.GetY()+2
 	need := contentsChapters + len(d.s.Assets)
-	for float64(need)*contentsLine > c.room(ph, 1) {
+	for float64(need)*contentsLine > c.room(ph, c.pages) {
 		d.newPage(false)
 		c.pages++
 	}

@@ -9,6 +9,9 @@ import (
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
+// coverAssets is how many assets the cover names before it counts the rest.
+const coverAssets = 8
+
 // cover writes the first page: what was surveyed, by whom, and the headline figures.
 func (d *doc) cover() {
 	p := d.pdf
@@ -29,6 +32,10 @@ func (d *doc) cover() {
 	var assets []string
 	for _, a := range d.s.Assets {
 		assets = append(assets, a.Name)
+	}
+	if n := len(assets); n > coverAssets {
+		// A long list would push the cautions and the summary off their pages.
+		assets = append(assets[:coverAssets-1], fmt.Sprintf("and %d more (see the contents)", n-coverAssets+1))
 	}
 	for _, kv := range [][2]string{
 		{"Survey date", d.s.Date.Format(dateLayout)},

@@ -8,11 +8,16 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"github.com/lossline/lossline/findings"
+	"github.com/lossline/lossline/internal/scalesurvey"
+	"github.com/lossline/lossline/survey"
+	"github.com/lossline/lossline/survey/wallloss"
 )
 
-// demoPages renders the demo and reads its pages back with poppler's
-// pdftotext (an independent reader), one string per page.
-func demoPages(t *testing.T) []string {
+// needPoppler skips the test, or fails it under LOSSLINE_REQUIRE_POPPLER,
+// when pdftotext is missing.
+func needPoppler(t *testing.T) {
 	t.Helper()
 	if _, err := exec.LookPath("pdftotext"); err != nil {
 		if os.Getenv("LOSSLINE_REQUIRE_POPPLER") != "" {
@@ -20,10 +25,23 @@ func demoPages(t *testing.T) []string {
 		}
 		t.Skip("pdftotext not installed (poppler-utils)")
 	}
+}
+
+// demoPages renders the demo and reads its pages back with poppler's
+// pdftotext (an independent reader), one string per page.
+func demoPages(t *testing.T) []string {
+	t.Helper()
+	needPoppler(t)
 	pdf, _, err := PDF(demo(t), testOptions())
 	if err != nil {
 		t.Fatal(err)
 	}
+	return pdfPages(t, pdf)
+}
+
+// pdfPages reads a PDF's pages back with pdftotext -layout.
+func pdfPages(t *testing.T, pdf []byte) []string {
+	t.Helper()
 	file := filepath.Join(t.TempDir(), "report.pdf")
 	if err := os.WriteFile(file, pdf, 0o644); err != nil {
 		t.Fatal(err)
@@ -155,5 +173,51 @@ func TestDemoReadsAsADeliverable(t *testing.T) {
 	captions := regexp.MustCompile(`Figure (\d+)\. `).FindAllString(strings.Join(pages, ""), -1)
 	if n == 0 || n != len(captions) {
 		t.Errorf("photo index lists %d figures, the pages caption %d", n, len(captions))
+	}
+}
+
+// A survey of 60 assets needs two contents pages: both are reserved before
+// the chapters, and every entry names the page its heading is on.
+func TestContentsOverSeveralPages(t *testing.T) {
+	needPoppler(t)
+	dir := filepath.Join(t.TempDir(), "survey")
+	if err := scalesurvey.Write(dir, scalesurvey.Size{CMLs: 120, Units: 60, Circuits: 1}); err != nil {
+		t.Fatal(err)
+	}
+	s, problems := survey.LoadSeries(dir, nil, survey.DefaultOptions)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	pdf, _, err := PDF(findings.Compute(s, findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25}), testOptions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	pages := pdfPages(t, pdf)
+	first := -1
+	for i, p := range pages {
+		if strings.HasPrefix(strings.TrimSpace(p), "Contents") {
+			first = i
+			break
+		}
+	}
+	if first < 0 {
+		t.Fatal("no contents page")
+	}
+	listed := 0
+	for i := first; i < first+2; i++ {
+		for _, line := range strings.Split(pages[i], "\n") {
+			m := contentsRow.FindStringSubmatch(line)
+			if m == nil || strings.Contains(line, "page ") || m[1] == "Contents" {
+				continue
+			}
+			n, _ := strconv.Atoi(m[2])
+			if n < 1 || n > len(pages) || !strings.Contains(flat(pages[n-1]), m[1]) {
+				t.Errorf("contents page %d: %q is not on page %d", i+1, m[1], n)
+			}
+			listed++
+		}
+	}
+	if listed < 60 {
+		t.Errorf("%d entries on the two contents pages, want every one of the 60 assets at least", listed)
 	}
 }
