@@ -76,7 +76,7 @@ func (d *doc) sitePlan(a *survey.Asset) {
 			}
 			note := fmt.Sprintf("P%d, %s: %s", n, fig, placedOn(ph.Placement))
 			if ph.Placement.DistanceM != nil {
-				note += fmt.Sprintf(" (%.0f m, %s)", *ph.Placement.DistanceM, ph.Placement.Basis)
+				note += fmt.Sprintf(" (%.0f m; %s)", *ph.Placement.DistanceM, ph.Placement.Words())
 			}
 			photoNotes = append(photoNotes, note)
 		}
