@@ -156,7 +156,7 @@ func (f *Findings) dueWords() []string {
 	if len(later) > 0 {
 		lead := "Next inspections, soonest first"
 		if len(later) > namesShown {
-			lead = fmt.Sprintf("The %d soonest of %d next inspections", namesShown, len(later))
+			lead = fmt.Sprintf("The soonest next inspections (%d of %d components)", namesShown, len(later))
 			later = later[:namesShown]
 		}
 		out = append(out, lead+": "+strings.Join(later, "; ")+".")
@@ -168,18 +168,25 @@ func (f *Findings) dueWords() []string {
 		counts[w] = append(counts[w], it.CML.ID)
 	}
 	var parts []string
-	for _, w := range []wallloss.Window{wallloss.WindowNow, wallloss.WindowUnder2, wallloss.Window2To5, wallloss.Window5To10} {
+	for _, w := range []wallloss.Window{wallloss.WindowNow, wallloss.WindowUnder2, wallloss.Window2To5, wallloss.Window5To10, wallloss.WindowUnknown} {
 		if ids := counts[w]; len(ids) > 0 {
 			name := w.String()
-			if w == wallloss.WindowNow {
+			switch w {
+			case wallloss.WindowNow:
 				name = "now (at or below required)"
+			case wallloss.WindowUnknown:
+				name = "unknown (no remaining life can be computed)"
 			}
 			parts = append(parts, fmt.Sprintf("%s: %s", name, list(ids)))
 		}
 	}
 	if len(parts) > 0 {
-		out = append(out, "Repair windows: "+strings.Join(parts, "; ")+fmt.Sprintf("; the other %s 10 years or more, or show no measurable loss.",
-			count(len(f.Items)-countAll(counts, wallloss.WindowNow, wallloss.WindowUnder2, wallloss.Window2To5, wallloss.Window5To10), "CML has", "CMLs have")))
+		rest := countAll(counts, wallloss.WindowOver10, wallloss.WindowNoLoss)
+		tail := "."
+		if rest > 0 {
+			tail = fmt.Sprintf("; the other %s 10 years or more, or show no measurable loss.", count(rest, "CML has", "CMLs have"))
+		}
+		out = append(out, "Repair windows: "+strings.Join(parts, "; ")+tail)
 	}
 	return out
 }

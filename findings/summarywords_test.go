@@ -37,7 +37,10 @@ func TestSummaryWordsUrgentAndDue(t *testing.T) {
 		"| Y-1 | 6.5 | 5.5 |\n"+
 		// Z-1: 7.00 → 6.96 mm: 0.008 mm/y, remaining life 1.96 / 0.0080 = 244.9 years.
 		"| Z-1 | 7.0 | 6.96 |\n\n"+
-		"- [x] Readings at every CML\n- [ ] Roof plates (no access)\n")
+		"- [x] Readings at every CML\n- [ ] Roof plates (no access)\n\n"+
+		// 8.00 → 7.90 mm: 0.020 mm/y, remaining life 2.90 / 0.0200 = 145 years; next
+		// inspection at the lesser of half the remaining life (the API 570 half-life interval, from memory) and the 10-year cap of lossline's default rule.
+		"# Tank B\n\n## Roof\n\n- nominal: 8\n- required: 5\n\n| CML | 2016-05-01 | 2021-05-01 |\n|---|---|---|\n| R-1 | 8.0 | 7.9 |\n")
 	urgent := strings.Join(w.Urgent, " ")
 	for _, want := range []string{
 		"CML X-1 on Tank A / Shell is at or below its required thickness: 4.80 mm measured on 2021-05-01 against 5.00 mm required, losing 0.240 mm/y.",
@@ -51,7 +54,8 @@ func TestSummaryWordsUrgentAndDue(t *testing.T) {
 	// X-1 is due now; the component's next inspection is its earliest CML's.
 	for _, want := range []string{
 		"Inspection due now, on or before the survey date 2021-05-01: Tank A / Shell (CML X-1).",
-		"Repair windows: now (at or below required): X-1; 2 to 5 years: Y-1; the other 1 CML has 10 years or more",
+		"Next inspections, soonest first: Tank B / Roof by 2031-05-01 (CML R-1).",
+		"Repair windows: now (at or below required): X-1; 2 to 5 years: Y-1; the other 2 CMLs have 10 years or more, or show no measurable loss.",
 	} {
 		if !strings.Contains(due, want) {
 			t.Errorf("due %q lacks %q", due, want)
@@ -61,7 +65,7 @@ func TestSummaryWordsUrgentAndDue(t *testing.T) {
 		t.Errorf("not done: %q", got)
 	}
 	// Two visits each: the previous visit is the first reading, with no rate.
-	if len(w.Changed) == 0 || !strings.HasPrefix(w.Changed[0], "Since the previous visit (3 CMLs compared), 1 CML crossed the required thickness (X-1)") {
+	if len(w.Changed) == 0 || !strings.HasPrefix(w.Changed[0], "Since the previous visit (4 CMLs compared), 1 CML crossed the required thickness (X-1)") {
 		t.Errorf("changed: %q", w.Changed)
 	}
 }
@@ -93,6 +97,11 @@ func TestSummaryWordsFirstVisit(t *testing.T) {
 		"| CML | 2021-05-01 |\n|---|---|\n| X-1 | 7.9 |\n")
 	if len(w.Changed) != 1 || w.Changed[0] != "No CML has an earlier visit to compare with: every rate is a single-visit estimate." {
 		t.Errorf("changed: %q", w.Changed)
+	}
+	// One reading and no assumed rate: no remaining life, and no sentence
+	// counts the CML among those with 10 years or more.
+	if due := strings.Join(w.Due, " "); !strings.Contains(due, "Repair windows: unknown (no remaining life can be computed): X-1.") {
+		t.Errorf("due: %q", due)
 	}
 }
 
