@@ -131,7 +131,8 @@ func (d *doc) writeContents() {
 // least minRoom mm are left on it, else on a new one, so that no page is left
 // with a few lines only because a chapter began.
 func (d *doc) chapter(minRoom float64) {
-	if d.landscape || !d.room(minRoom) {
+	onContents := d.toc != nil && d.toc.first > 0 && d.pdf.PageNo() < d.toc.first+d.toc.pages
+	if d.landscape || onContents || !d.room(minRoom) {
 		d.newPage(false)
 		return
 	}

@@ -62,11 +62,12 @@ func (d *doc) plannedFigures() map[string]int {
 // photoIndex writes the appendix that lists every figure: its number, what
 // it shows, its file and its page.
 func (d *doc) photoIndex() {
-	if len(d.figures) == 0 {
-		return
-	}
 	d.chapter(60)
 	d.heading(0, photoIndexTitle)
+	if len(d.figures) == 0 {
+		d.text("This report shows no photos.")
+		return
+	}
 	d.text("Every photo in this report, by figure number, with the page it is on. A photo shown under several CMLs, " +
 		"or before and after, has a figure each time.")
 	d.pdf.Ln(1)
@@ -93,4 +94,12 @@ func figureShows(s photoShown) string {
 		who += " (" + map[string]string{"Before": "earlier visit", "Now": "this visit"}[s.label] + ")"
 	}
 	return who
+}
+
+// plural writes n with the singular or plural noun.
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return "1 " + one
+	}
+	return strconv.Itoa(n) + " " + many
 }

@@ -13,7 +13,7 @@ import (
 // riskSection writes the 5×5 risk matrix with counts per cell, labelled in
 // words, and the components by their highest CML risk.
 func (d *doc) riskSection() {
-	d.newPage(false)
+	d.chapter(150)
 	d.heading(0, "Risk")
 	d.text("Risk per CML = likelihood × consequence, both on five levels. Likelihood comes from the remaining life the " +
 		"dates use (for a fitted rate its lower confidence bound, so rate uncertainty can only raise it): " + plan.LifeBands +

@@ -156,9 +156,10 @@ func (d *doc) summary() {
 	for _, a := range d.s.Assets {
 		nComp += len(a.Components)
 	}
-	d.text(fmt.Sprintf("%d CMLs on %d components of %d assets. Each component is governed by its most urgent CML; "+
+	d.text(fmt.Sprintf("%s on %s of %s. Each component is governed by its most urgent CML; "+
 		"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
-		len(d.items), nComp, len(d.s.Assets), d.u.u, d.u.rateUnit))
+		plural(len(d.items), "CML", "CMLs"), plural(nComp, "component", "components"), plural(len(d.s.Assets), "asset", "assets"),
+		d.u.u, d.u.rateUnit))
 	d.pdf.Ln(2)
 	u := string(d.u.u)
 	cols := []column{
