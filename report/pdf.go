@@ -64,7 +64,7 @@ type doc struct {
 	warnings  survey.ProblemList
 	toc       *contents           // the printed contents, filled at the end
 	figures   []figure            // the photos drawn, in order: figure i+1 is figures[i]
-	photoWarn map[string][]string // warnings about a photo file, by its path
+	warnAt    map[string][]string // warning messages by place (file:line, or file alone)
 	figPlan   map[string]int      // plannedFigures, computed once
 }
 

@@ -95,6 +95,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	if len(c.CMLs) > 0 {
 		d.readings(c)
 		d.results(c)
+		d.cmlWarnings(c)
 		d.trend(c)
 	}
 	if len(c.Scope) > 0 {

@@ -95,3 +95,54 @@ func earlierSurveyWords(e *survey.Survey) string {
 	}
 	return fmt.Sprintf("the survey of %s by %s", e.Date.Format(dateLayout), e.Inspector)
 }
+
+// warningsAt are the messages of the survey's warnings at file:line (line 0:
+// about the file as a whole), so that a client page can say a warning in
+// words where it matters while its place stays in the data checks appendix.
+func (d *doc) warningsAt(file string, line int) []string {
+	if d.warnAt == nil {
+		d.warnAt = map[string][]string{}
+		for _, w := range d.s.Problems {
+			k := place(w.File, w.Line)
+			d.warnAt[k] = append(d.warnAt[k], w.Message)
+		}
+	}
+	return d.warnAt[place(file, line)]
+}
+
+// cmlWarnings says, under a component's results, the warnings raised at its
+// CMLs' rows: what to check before relying on those results.
+func (d *doc) cmlWarnings(c *survey.Component) {
+	var msgs []string
+	seen := map[string]bool{}
+	for _, m := range c.CMLs {
+		type at struct {
+			file string
+			line int
+		}
+		places := []at{{m.File, m.Line}}
+		for _, v := range m.Visits {
+			places = append(places, at{v.File, v.Line})
+		}
+		for _, pl := range places {
+			for _, msg := range d.warningsAt(pl.file, pl.line) {
+				if !seen[msg] {
+					seen[msg] = true
+					msgs = append(msgs, msg)
+				}
+			}
+		}
+	}
+	if len(msgs) == 0 {
+		return
+	}
+	d.need(20)
+	d.font("B", smallSize)
+	d.pdf.MultiCell(0, 3.8, "Check before relying on these results (each warning's line of the checklist is in "+dataChecksTitle+"):", "", "L", false)
+	d.font("", smallSize)
+	for _, msg := range msgs {
+		d.pdf.MultiCell(0, 3.8, "• "+msg, "", "L", false)
+	}
+	d.pdf.Ln(1)
+	d.font("", bodySize)
+}

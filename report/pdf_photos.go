@@ -147,16 +147,8 @@ func (d *doc) caption(s photoShown, n int) string {
 	// A warning about the photo itself (its clock, its date) is said where
 	// the photo is, in words; its file and the warning's place are in the
 	// data checks appendix.
-	if d.photoWarn == nil {
-		d.photoWarn = map[string][]string{}
-		for _, w := range d.s.Problems {
-			if w.Line == 0 {
-				d.photoWarn[w.File] = append(d.photoWarn[w.File], w.Message)
-			}
-		}
-	}
 	if ph.Path != "" {
-		for _, m := range d.photoWarn[ph.Path] {
+		for _, m := range d.warningsAt(ph.Path, 0) {
 			text += "\nNote: " + m
 		}
 	}

@@ -221,3 +221,48 @@ func TestContentsOverSeveralPages(t *testing.T) {
 		t.Errorf("%d entries on the two contents pages, want every one of the 60 assets at least", listed)
 	}
 }
+
+// A warning at a CML's row is said in words under its component's results,
+// without the checklist's name or line, which only the data checks appendix
+// prints.
+func TestCMLWarningInWordsUnderResults(t *testing.T) {
+	needPoppler(t)
+	// 9.6 mm, then 0.95 mm: a missing digit or decimal slip, warned at the row (the
+	// check itself is survey's; any warning at the row will do here).
+	src := "---\ntitle: Slip\nsite: Yard\ninspector: Test\ndate: 2025-07-01\nunits: mm\n---\n# Tank\n\n## Course 1\n\n- nominal: 10\n- required: 5\n\n" +
+		"| CML | 2020-06-01 | 2025-07-01 |\n|---|---|---|\n| C1 | 9.8 | 9.6 |\n| C2 | 9.7 | 0.95 |\n| C3 | 9.9 | 9.7 |\n"
+	dir := t.TempDir()
+	if err := os.WriteFile(filepath.Join(dir, "survey.md"), []byte(src), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	s, problems := survey.LoadSeries(dir, nil, survey.DefaultOptions)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	var msg string
+	for _, p := range s.Problems {
+		if p.Line == 18 { // the row of C2
+			msg = p.Message
+		}
+	}
+	if msg == "" {
+		t.Fatalf("no warning at the row of C2: %v", s.Problems)
+	}
+	pdf, _, err := PDF(findings.Compute(s, findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25}), testOptions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	pages := pdfPages(t, pdf)
+	all := flat(strings.Join(pages, " "))
+	checks := strings.Index(all, "Appendix D — Data checks For the inspector")
+	at := strings.Index(all, "Check before relying on these results")
+	if at < 0 || checks < 0 || at > checks || !strings.Contains(all[at:checks], flat(msg)) {
+		t.Errorf("the warning %q is not said under the component's results before the data checks", msg)
+	}
+	if strings.Contains(all[:checks], "survey.md:18") {
+		t.Error("the warning's place shows before the data checks appendix")
+	}
+	if !strings.Contains(all[checks:], "survey.md:18") {
+		t.Error("the data checks appendix lacks the warning's place")
+	}
+}
