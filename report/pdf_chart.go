@@ -135,8 +135,10 @@ func (d *doc) trend(c *survey.Component) {
 				p.SetLineWidth(0.15)
 				p.Line(x+1.2, ys[k], lx-0.3, at[k])
 			}
+			// A white ground keeps the label legible where a projection line runs under it.
+			p.SetFillColor(255, 255, 255)
 			p.SetXY(lx, at[k]-1.5)
-			p.CellFormat(14, 3, ch.Series[i].ID, "", 0, "L", false, 0, "")
+			p.CellFormat(p.GetStringWidth(ch.Series[i].ID)+0.8, 3, ch.Series[i].ID, "", 0, "L", true, 0, "")
 		}
 	}
 	p.ClipEnd()
