@@ -99,3 +99,14 @@ func (ch *trendChart) extend(p trendPoint) {
 	ch.LowMM = math.Min(ch.LowMM, p.MM)
 	ch.HighMM = math.Max(ch.HighMM, p.MM)
 }
+
+// repeated reports whether some CML of the chart has two or more readings:
+// only then does a trend chart show a trend.
+func (ch trendChart) repeated() bool {
+	for _, s := range ch.Series {
+		if len(s.Points) >= 2 {
+			return true
+		}
+	}
+	return false
+}

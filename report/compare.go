@@ -31,10 +31,10 @@ func Comparison(f *findings.Findings, disp Display, asCSV bool) ([]byte, error) 
 		}
 		before := ""
 		if c.Previous != nil {
-			before = status(*c.Previous)
+			before = repairWindow(*c.Previous)
 		}
 		rows = append(rows, []string{fmt.Sprint(it.Rank), it.CML.ID, it.Asset.Name, it.Component.Name, prevDate, prevT,
-			day(r.CurrentDate), u.thick(r.ThicknessMM), latest, u.rate(r.RateLongMMPerY), before, status(r), strings.Join(codes(c.Codes), " ")})
+			day(r.CurrentDate), u.thick(r.ThicknessMM), latest, u.rate(r.RateLongMMPerY), before, repairWindow(r), strings.Join(codes(c.Codes), " ")})
 	}
 	for _, row := range rows {
 		for i, v := range row {

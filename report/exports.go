@@ -27,7 +27,7 @@ func CSV(r Results, disp Display) ([]byte, error) {
 		"thickness_" + tu, "required_" + tu, "nominal_" + tu,
 		"rate_long_" + ru, "rate_short_" + ru, "rate_" + ru, "rate_model",
 		"previous_date", "previous_thickness_" + tu, "previous_rate_" + ru, "change",
-		"remaining_life_y", "remaining_life_low_y", "retirement_date", "next_inspection", "next_inspection_basis",
+		"remaining_life_y", "remaining_life_low_y", "repair_window", "retirement_date", "next_inspection", "next_inspection_basis",
 		"next_external_inspection", "interval_rule", "required_method", "consequence", "flags", "photos",
 		"local_damage_life_y", "local_damage"}
 	var b bytes.Buffer
@@ -52,7 +52,7 @@ func CSV(r Results, disp Display) ([]byte, error) {
 			thick(it.ThicknessMM), thick(it.RequiredMM), thick(it.NominalMM),
 			rate(it.RateLongMMPerY), rate(it.RateShortMMPerY), rate(it.RateMMPerY), it.RateModel,
 			str(it.PreviousDate), thick(it.PreviousMM), rate(it.PreviousRate), strings.Join(it.Change, " "),
-			num(it.RemainingLifeY, 2), num(it.RemainingLifeLowY, 2), str(it.RetirementDate), str(it.NextInspection), str(it.NextInspectionWhy),
+			num(it.RemainingLifeY, 2), num(it.RemainingLifeLowY, 2), it.RepairWindow, str(it.RetirementDate), str(it.NextInspection), str(it.NextInspectionWhy),
 			str(it.NextExternal), it.IntervalRule, it.RequiredMethod,
 			str(it.Consequence), strings.Join(it.Flags, " "), strings.Join(it.Photos, " "),
 			num(it.LocalDamageLifeY, 2), it.LocalDamage,

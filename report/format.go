@@ -74,8 +74,8 @@ func day(t *time.Time) string {
 	return t.Format(dateLayout)
 }
 
-// status says in words how urgent a CML is.
-func status(r wallloss.Result) string {
+// repairWindow says in words how soon a CML needs repair: its repair window.
+func repairWindow(r wallloss.Result) string {
 	if w := wallloss.WindowOf(r); w != wallloss.WindowUnknown {
 		return w.String()
 	}

@@ -44,7 +44,7 @@ func GeoJSON(f *findings.Findings) ([]byte, error) {
 		risk := f.Risk(it)
 		props := map[string]any{
 			"kind": "cml", "cml": it.CML.ID, "asset": it.Asset.Name, "component": it.Component.Name, "location": it.CML.Location,
-			"rank": it.Rank, "status": status(r), "thickness_mm": round(r.ThicknessMM, 4), "required_mm": round(it.Component.Design.RequiredMM, 4),
+			"rank": it.Rank, "repair_window": repairWindow(r), "thickness_mm": round(r.ThicknessMM, 4), "required_mm": round(it.Component.Design.RequiredMM, 4),
 			"rate_mm_per_y": round(r.RateMMPerY, 6), "remaining_life_y": round(r.RemainingLifeY, 3),
 			"retirement_date": dateOf(r.Retirement), "next_inspection": dateOf(r.NextInspection),
 			"risk_level": risk.Level(), "risk_score": risk.Score(), "flags": codes(r.Flags),

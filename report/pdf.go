@@ -62,6 +62,10 @@ type doc struct {
 	landscape bool
 	photos    map[string]*photoEntry
 	warnings  survey.ProblemList
+	toc       *contents           // the printed contents, filled at the end
+	figures   []figure            // the photos drawn, in order: figure i+1 is figures[i]
+	warnAt    map[string][]string // warning messages by place (file:line, or file alone)
+	figPlan   map[string]int      // plannedFigures, computed once
 }
 
 // photoEntry is a photo prepared once, however many CMLs show it.
@@ -120,6 +124,7 @@ func (d *doc) sections() error {
 		return err
 	}
 	d.summary()
+	d.reserveContents()
 	d.actionsSection()
 	d.electroFindings()
 	d.changesSection()
@@ -130,11 +135,13 @@ func (d *doc) sections() error {
 		d.asset(a)
 	}
 	d.unlinkedPhotos()
+	d.photoIndex()
 	if err := d.methods(); err != nil {
 		return err
 	}
 	d.recordsAppendix()
-	d.warningsAppendix()
+	d.dataChecks()
+	d.writeContents()
 	return nil
 }
 
@@ -191,6 +198,7 @@ func (d *doc) need(h float64) {
 // heading writes a section heading and its outline entry. Level 0 starts a
 // new page.
 func (d *doc) heading(level int, text string) {
+	defer d.noteHeading(level, text)
 	switch level {
 	case 0:
 		d.font("B", 16)

@@ -31,7 +31,7 @@ func (d *doc) actionsSection() {
 	}
 	intro := fmt.Sprintf("%d open actions, by due date and then priority (immediate, high, medium, low).", len(open))
 	if overdue > 0 {
-		intro += fmt.Sprintf(" %d %s OVERDUE: due before this survey's date and not closed.", overdue, plural(overdue, "is", "are"))
+		intro += fmt.Sprintf(" %d %s OVERDUE: due before this survey's date and not closed.", overdue, word(overdue, "is", "are"))
 	}
 	intro += " Computed actions are worked out afresh from every survey's readings; an action the inspector writes carries into later surveys until one closes it. The id stays the same from survey to survey."
 	d.text(intro)
@@ -90,7 +90,8 @@ func (d *doc) actionSource(a actions.Action) string {
 	return "inspector, this survey"
 }
 
-func plural(n int, one, many string) string {
+// word is one or many as n asks.
+func word(n int, one, many string) string {
 	if n == 1 {
 		return one
 	}

@@ -2,7 +2,6 @@ package report
 
 import (
 	"fmt"
-	"strconv"
 )
 
 // methods writes the methods appendix from its template and the settings used.
@@ -22,7 +21,7 @@ func (d *doc) methods() error {
 		return fmt.Errorf("methods template: %w", err)
 	}
 	d.newPage(false)
-	d.heading(0, "Appendix B — Methods")
+	d.heading(0, "Appendix C — Methods")
 	d.markdown(text)
 	d.electroMethods()
 	if err := d.localMethods(); err != nil { // pdf_local.go
@@ -31,7 +30,7 @@ func (d *doc) methods() error {
 	d.heading(1, "Settings used for this report")
 	tmpl := "built in"
 	if d.opts.Templates.Override != "" {
-		tmpl = d.opts.Templates.Override + " (its methods text replaces the built-in one; its cautions follow the built-in cautions)"
+		tmpl = "from the templates folder named in " + dataChecksTitle + " (its methods text replaces the built-in one; its cautions follow the built-in cautions)"
 	}
 	d.keyValues([][2]string{
 		{"Rate model", rateModelText(d.f.Settings.Policy.RateModel) + " (components may set their own)"},
@@ -46,34 +45,7 @@ func (d *doc) methods() error {
 		{"Program", "lossline " + d.opts.Version},
 	}, 40)
 	if len(d.opts.Settings) > 0 {
-		d.heading(2, "Every setting, its value and where it came from")
-		rows := make([][]string, len(d.opts.Settings))
-		for i, r := range d.opts.Settings {
-			rows[i] = []string{r.Name, r.Value, r.Default, r.Source}
-		}
-		d.table([]column{{"Setting", 42, "L"}, {"Value", 48, "L"}, {"Default", 40, "L"}, {"From", d.width() - 130, "L"}}, rows, nil, smallSize)
+		d.text("Where each setting came from (built in, the settings file, the environment or a flag) is listed in " + dataChecksTitle + ".")
 	}
 	return nil
-}
-
-// warningsAppendix lists every warning with its place.
-func (d *doc) warningsAppendix() {
-	d.newPage(false)
-	d.heading(0, "Appendix C — Warnings")
-	all := append(append(d.s.Problems[:0:0], d.s.Problems...), d.warnings...)
-	if len(all) == 0 {
-		d.text("Reading the survey raised no warnings.")
-		return
-	}
-	d.text("Problems found while reading the survey that did not stop the report. Check each one.")
-	d.pdf.Ln(1)
-	rows := make([][]string, len(all))
-	for i, w := range all {
-		place := w.File
-		if w.Line > 0 {
-			place += ":" + strconv.Itoa(w.Line)
-		}
-		rows[i] = []string{place, w.Message}
-	}
-	d.table([]column{{"File and line", 70, "L"}, {"Warning", d.width() - 70, "L"}}, rows, nil, smallSize)
 }

@@ -33,9 +33,9 @@ func (d *doc) changesSection() {
 	if h != nil {
 		var files []string
 		for _, e := range h.Earlier {
-			files = append(files, fmt.Sprintf("%s (%s, %s)", e.File, e.Date.Format(dateLayout), e.Inspector))
+			files = append(files, earlierSurveyWords(e))
 		}
-		intro += " Earlier surveys merged in: " + strings.Join(files, "; ") + "."
+		intro += " Earlier surveys merged in: " + strings.Join(files, "; ") + " (their files: " + dataChecksTitle + ")."
 	}
 	d.text(intro)
 	d.pdf.Ln(1)
@@ -54,9 +54,9 @@ func (d *doc) changesSection() {
 				prev := it.CML.Visits[n-2]
 				before = prev.Date.String() + ": " + d.u.u.Format(prev.Governing())
 			}
-			window := status(r)
+			window := repairWindow(r)
 			if c.Previous != nil {
-				window = status(*c.Previous) + " → " + window
+				window = repairWindow(*c.Previous) + " → " + window
 			}
 			var words []string
 			for _, code := range c.Codes {
@@ -71,19 +71,6 @@ func (d *doc) changesSection() {
 			rows, func(i int) rowStyle { return styles[i] }, smallSize)
 	}
 
-	if len(withIntervals) > 0 {
-		d.heading(1, "Rate over each interval")
-		rows := make([][]string, len(withIntervals))
-		for i, c := range withIntervals {
-			var parts []string
-			for _, iv := range c.Intervals {
-				parts = append(parts, fmt.Sprintf("%s → %s: %s", iv.Start.Format(dateLayout), iv.End.Format(dateLayout), d.u.rate(&iv.RateMMPerY)))
-			}
-			rows[i] = []string{c.Item.CML.ID, strings.Join(parts, "\n"), d.u.rate(c.Item.Result.RateLongMMPerY)}
-		}
-		d.table([]column{{"CML", 16, "L"}, {"Interval: rate (" + d.u.rateUnit + "; negative where the wall read thicker)", 134, "L"},
-			{"Long-term (" + d.u.rateUnit + ")", 30, "R"}}, rows, nil, smallSize)
-	}
 	if h == nil {
 		return
 	}
@@ -91,18 +78,46 @@ func (d *doc) changesSection() {
 		d.heading(1, "CMLs no longer listed")
 		rows := make([][]string, len(h.Dropped))
 		for i, x := range h.Dropped {
-			rows[i] = []string{x.ID, x.Asset + " / " + x.Component, x.Last.Date.String() + ": " + d.u.u.Format(x.Last.Governing()),
-				fmt.Sprintf("%s:%d", x.Last.File, x.Last.Line)}
+			rows[i] = []string{x.ID, x.Asset + " / " + x.Component, x.Last.Date.String() + ": " + d.u.u.Format(x.Last.Governing())}
 		}
-		d.table([]column{{"CML", 16, "L"}, {"Asset / component", 60, "L"}, {"Last reading (" + string(d.u.u) + ")", 34, "L"}, {"Where", 70, "L"}}, rows, nil, smallSize)
+		d.table([]column{{"CML", 16, "L"}, {"Asset / component", 90, "L"}, {"Last reading (" + string(d.u.u) + ")", d.width() - 106, "L"}}, rows, nil, smallSize)
 	}
 	if len(h.DesignChanges) > 0 {
 		d.heading(1, "Design data that changed")
 		rows := make([][]string, len(h.DesignChanges))
 		for i, x := range h.DesignChanges {
-			rows[i] = []string{x.Asset + " / " + x.Component, x.Field, d.u.thick(&x.OldMM) + " → " + d.u.thick(&x.NewMM), fmt.Sprintf("%s:%d", x.OldFile, x.OldLine)}
+			rows[i] = []string{x.Asset + " / " + x.Component, x.Field, d.u.thick(&x.OldMM) + " → " + d.u.thick(&x.NewMM), d.surveyOfFile(x.OldFile)}
 		}
-		d.table([]column{{"Asset / component", 70, "L"}, {"Thickness", 20, "L"}, {"Before → now (" + string(d.u.u) + ")", 30, "L"}, {"Earlier value at", 60, "L"}}, rows, nil, smallSize)
+		d.table([]column{{"Asset / component", 70, "L"}, {"Thickness", 20, "L"}, {"Before → now (" + string(d.u.u) + ")", 30, "L"}, {"Earlier value from", 60, "L"}}, rows, nil, smallSize)
+	}
+	pairs := d.beforeAfterPairs()
+	if len(pairs) > 0 {
+		d.need(photoMaxH + 20)
+		d.heading(1, "Before and after")
+		d.text(fmt.Sprintf("The same CML at an earlier visit and now, side by side (%s).", d.figureRange(len(pairs))))
+		d.pdf.Ln(1)
+		d.photoGrid(pairs)
+	}
+}
+
+// surveyOfFile names the earlier survey read from file by its date and
+// inspector; the file itself is printed only in the data checks appendix.
+func (d *doc) surveyOfFile(file string) string {
+	if h := d.s.History; h != nil {
+		for _, e := range h.Earlier {
+			if e.File == file {
+				return earlierSurveyWords(e)
+			}
+		}
+	}
+	return "an earlier survey (see " + dataChecksTitle + ")"
+}
+
+// beforeAfterPairs are the CMLs with a photo at an earlier visit and now: the
+// earlier photo, then the current one.
+func (d *doc) beforeAfterPairs() []photoShown {
+	if d.s.History == nil {
+		return nil
 	}
 	var pairs []photoShown
 	for _, it := range d.items {
@@ -116,9 +131,5 @@ func (d *doc) changesSection() {
 		}
 		pairs = append(pairs, photoShown{entry: before, cml: it.CML.ID, label: "Before"}, photoShown{entry: after, cml: it.CML.ID, label: "Now"})
 	}
-	if len(pairs) > 0 {
-		d.need(photoMaxH + 20)
-		d.heading(1, "Before and after")
-		d.photoGrid(pairs)
-	}
+	return pairs
 }

@@ -23,8 +23,8 @@ const (
 // told apart by marker shape and a label, so the chart reads in grey scale.
 func (d *doc) trend(c *survey.Component) {
 	ch := buildTrendChart(c, d.f.Item)
-	if len(ch.Series) == 0 {
-		return
+	if !ch.repeated() {
+		return // one visit per CML: a chart would be points and a guess; the results table says it
 	}
 	d.need(chartH + 30)
 	d.heading(2, "Trend")
@@ -107,9 +107,39 @@ func (d *doc) trend(c *survey.Component) {
 		for _, pt := range s.Points {
 			marker(p, xOf(pt.T), yOf(pt.MM), i%len(markerShapes), i/len(markerShapes)%2 == 1)
 		}
-		last := s.Points[len(s.Points)-1]
-		p.SetXY(xOf(last.T)+1.5, yOf(last.MM)-1.5)
-		p.CellFormat(14, 3, s.ID, "", 0, "L", false, 0, "")
+	}
+	// Labels at each series' last reading, spread apart where readings of
+	// the same date lie close, with a leader line where one had to move.
+	byDate := map[time.Time][]int{}
+	var dates []time.Time
+	for i, s := range ch.Series {
+		t := s.Points[len(s.Points)-1].T
+		if _, ok := byDate[t]; !ok {
+			dates = append(dates, t)
+		}
+		byDate[t] = append(byDate[t], i)
+	}
+	for _, t := range dates {
+		ids := byDate[t]
+		ys := make([]float64, len(ids))
+		for k, i := range ids {
+			s := ch.Series[i]
+			ys[k] = yOf(s.Points[len(s.Points)-1].MM)
+		}
+		at := spreadLabels(ys, 3.2, y0+1.6, y0+h-1.6)
+		x := xOf(t)
+		for k, i := range ids {
+			lx := x + 1.8
+			if math.Abs(at[k]-ys[k]) > 0.8 {
+				lx = x + 4
+				p.SetLineWidth(0.15)
+				p.Line(x+1.2, ys[k], lx-0.3, at[k])
+			}
+			// A white ground keeps the label legible where a projection line runs under it.
+			p.SetFillColor(255, 255, 255)
+			p.SetXY(lx, at[k]-1.5)
+			p.CellFormat(p.GetStringWidth(ch.Series[i].ID)+0.8, 3, ch.Series[i].ID, "", 0, "L", true, 0, "")
+		}
 	}
 	p.ClipEnd()
 	p.SetLineWidth(0.2)
@@ -154,8 +184,10 @@ func indexOf(c *survey.Component, id string) int {
 var markerShapes = []string{"circle", "square", "up", "diamond", "down", "plus", "cross"}
 
 // marker draws shape i at (x, y), filled black or hollow.
-func marker(p textPDF, x, y float64, i int, filled bool) {
-	const r = 1.1
+func marker(p textPDF, x, y float64, i int, filled bool) { markerSized(p, x, y, i, filled, 1.1) }
+
+// markerSized draws shape i of half-width r mm at (x, y), filled black or hollow.
+func markerSized(p textPDF, x, y float64, i int, filled bool, r float64) {
 	style := "D"
 	if filled {
 		p.SetFillColor(0, 0, 0)

@@ -12,7 +12,11 @@ import (
 
 // asset writes an asset's heading and notes, then each of its components.
 func (d *doc) asset(a *survey.Asset) {
-	d.newPage(false)
+	room := 110.0
+	if hasPositions(a) {
+		room = planBoxH + 70 // the heading stays with its site plan
+	}
+	d.chapter(room)
 	d.heading(0, a.Name)
 	if len(a.Notes) > 0 {
 		d.notes(a.Notes)
@@ -73,7 +77,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	if g := d.f.Governing(c); g != nil {
 		r := g.Result
 		gov := fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",
-			g.CML.ID, status(r), years(r.RemainingLifeY), day(r.NextInspection))
+			g.CML.ID, repairWindow(r), years(r.RemainingLifeY), day(r.NextInspection))
 		var unknown []string
 		for _, m := range c.CMLs {
 			if it := d.assessed(m); it != nil && it.Result.Class == wallloss.LifeUnknown {
@@ -95,6 +99,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	if len(c.CMLs) > 0 {
 		d.readings(c)
 		d.results(c)
+		d.cmlWarnings(c)
 		d.trend(c)
 	}
 	d.electro(c)
@@ -105,7 +110,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		for i, it := range c.Scope {
 			rows[i] = []string{map[bool]string{true: "done", false: "NOT DONE"}[it.Done], stripInline(it.Text)}
 		}
-		d.table([]column{{"Status", 22, "L"}, {"Item", d.width() - 22, "L"}}, rows, func(i int) rowStyle {
+		d.table([]column{{"Done", 22, "L"}, {"Item", d.width() - 22, "L"}}, rows, func(i int) rowStyle {
 			return rowStyle{bold: !c.Scope[i].Done}
 		}, bodySize-1)
 	}
@@ -113,6 +118,16 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 		d.heading(2, "Notes")
 		d.notes(c.Notes)
 	}
+	if shown := d.componentPhotos(c); len(shown) > 0 {
+		d.need(photoMaxH + 20) // keep the heading with the first row
+		d.heading(2, "Photos: "+d.figureRange(len(shown)))
+		d.photoGrid(shown)
+	}
+}
+
+// componentPhotos are the photos a component's pages show: its CMLs' first,
+// then its own.
+func (d *doc) componentPhotos(c *survey.Component) []photoShown {
 	var shown []photoShown
 	for _, m := range c.CMLs {
 		for _, ph := range d.f.Photos.OfCML(m) {
@@ -126,11 +141,7 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 			shown = append(shown, photoShown{entry: e})
 		}
 	}
-	if len(shown) > 0 {
-		d.need(photoMaxH + 20) // keep the heading with the first row
-		d.heading(2, "Photos")
-		d.photoGrid(shown)
-	}
+	return shown
 }
 
 // derivation shows how a required thickness was computed: inputs, steps, source.
@@ -222,12 +233,13 @@ func (d *doc) visitCell(m *survey.CML, dt survey.VisitDate) string {
 
 // results writes each CML's rates, remaining life and dates.
 func (d *doc) results(c *survey.Component) {
+	d.need(45) // the heading with the table's header and first rows
 	d.heading(2, "Results")
 	u, ru := string(d.u.u), d.u.rateUnit
 	cols := []column{
 		{"CML", 14, "L"}, {"Thick- ness (" + u + ")", 16, "R"}, {"Long- term rate (" + ru + ")", 17, "R"},
 		{"Short- term rate (" + ru + ")", 17, "R"}, {"Governing rate (" + ru + ")", 18, "R"}, {"Remaining life (y)", 18, "R"},
-		{"Retirement date", 21, "L"}, {"Next inspection", 23, "L"}, {"Status and flags", 36, "L"},
+		{"Retirement date", 21, "L"}, {"Next inspection", 23, "L"}, {"Repair window and flags", 36, "L"},
 	}
 	var rows [][]string
 	var res []wallloss.Result
@@ -259,7 +271,7 @@ func (d *doc) results(c *survey.Component) {
 		if r.RemainingLifeLowY != nil {
 			life += " (low " + years(r.RemainingLifeLowY) + ")"
 		}
-		st := status(r)
+		st := repairWindow(r)
 		var flags []wallloss.Flag
 		for _, f := range r.Flags {
 			if strings.ReplaceAll(string(f), "-", " ") != st {
@@ -283,4 +295,17 @@ func (d *doc) assessed(m *survey.CML) *survey.Assessed {
 // stripInline removes Markdown emphasis markers for table cells.
 func stripInline(s string) string {
 	return strings.NewReplacer("**", "", "__", "", "`", "").Replace(s)
+}
+
+// hasPositions reports whether some CML of the asset has a position, so that
+// the asset has a site plan.
+func hasPositions(a *survey.Asset) bool {
+	for _, c := range a.Components {
+		for _, m := range c.CMLs {
+			if m.GPS != nil {
+				return true
+			}
+		}
+	}
+	return false
 }

@@ -153,7 +153,7 @@ func (d *doc) repairText(c *survey.Component, e survey.RepairEvent) string {
 	var left []string
 	for _, m := range c.CMLs {
 		if n, rep := survey.UsedReadings(c, m, d.s.Date); rep != nil && rep.Date == e.Date && n > 0 {
-			left = append(left, fmt.Sprintf("%s (%d %s)", m.ID, n, plural(n, "reading", "readings")))
+			left = append(left, fmt.Sprintf("%s (%s)", m.ID, plural(n, "reading", "readings")))
 		}
 	}
 	if len(left) > 0 {

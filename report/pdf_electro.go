@@ -3,7 +3,6 @@ package report
 import (
 	"fmt"
 	"math"
-	"path/filepath"
 	"strings"
 	"time"
 
@@ -411,10 +410,10 @@ func (d *doc) electroFindings() {
 		if e.Subject != "" {
 			who += " / " + e.Subject
 		}
-		rows[i] = []string{e.Asset, who, e.Kind + ": " + strings.ToUpper(e.Status), strings.Join(e.Reasons, "; "), fmt.Sprintf("%s:%d", filepath.Base(e.File), e.Line)}
+		rows[i] = []string{e.Asset, who, e.Kind + ": " + strings.ToUpper(e.Status), strings.Join(e.Reasons, "; ")}
 	}
 	w := d.width()
-	d.table([]column{{"Asset", 32, "L"}, {"Component / point", 36, "L"}, {"Finding", 26, "L"}, {"Why", w - 120, "L"}, {"Line", 26, "L"}}, rows,
+	d.table([]column{{"Asset", 32, "L"}, {"Component / point", 36, "L"}, {"Finding", 26, "L"}, {"Why", w - 94, "L"}}, rows, // checklist lines: results.json and the data checks
 		func(int) rowStyle { return rowStyle{bold: true} }, smallSize)
 }
 

@@ -79,21 +79,22 @@ func (d *doc) photoGrid(shown []photoShown) {
 		pair := shown[i:min(i+2, len(shown))]
 		rowH := 0.0
 		d.font("", captionSize)
-		for _, s := range pair {
+		for j, s := range pair {
 			_, h := fit(s.entry.prep, cellW, photoMaxH)
-			lines := len(p.SplitText(d.caption(s), cellW))
+			lines := len(p.SplitText(d.caption(s, len(d.figures)+j+1), cellW))
 			rowH = max(rowH, h+2+float64(lines)*captionLine)
 		}
 		d.need(rowH + 4)
 		y := p.GetY()
 		for j, s := range pair {
+			d.figures = append(d.figures, figure{shown: s, page: p.PageNo()})
 			x := margin + float64(j)*(cellW+photoGap)
 			w, h := fit(s.entry.prep, cellW, photoMaxH)
 			p.ImageOptions(s.entry.key, x+(cellW-w)/2, y, w, h, false, fpdf.ImageOptions{ImageType: "JPG"}, 0, "")
 			p.Rect(x+(cellW-w)/2, y, w, h, "D")
 			p.SetXY(x, y+h+1.5)
 			d.font("", captionSize)
-			p.MultiCell(cellW, captionLine, d.caption(s), "", "L", false)
+			p.MultiCell(cellW, captionLine, d.caption(s, len(d.figures)), "", "L", false)
 		}
 		p.SetXY(margin, y+rowH+4)
 	}
@@ -109,8 +110,8 @@ func fit(pp photo.Prepared, w, h float64) (float64, float64) {
 	return h / ratio, h
 }
 
-// caption says which CML, which file, when and where.
-func (d *doc) caption(s photoShown) string {
+// caption numbers figure n and says which CML, which file, when and where.
+func (d *doc) caption(s photoShown, n int) string {
 	ph := s.entry.photo
 	pl := ph.Placement
 	who := "Not placed"
@@ -129,7 +130,7 @@ func (d *doc) caption(s photoShown) string {
 	if ph.Taken != nil {
 		taken = "taken " + ph.Taken.Format("2006-01-02 15:04")
 	}
-	text := fmt.Sprintf("%s · %s\n%s · %s", who, ph.Name, taken, latLon(ph.GPS))
+	text := fmt.Sprintf("Figure %d. %s · %s\n%s · %s", n, who, ph.Name, taken, latLon(ph.GPS))
 	switch {
 	case s.label != "" || pl.Basis == "" || pl.Basis == survey.PlacedNamed:
 	case pl.Placed():
@@ -143,6 +144,14 @@ func (d *doc) caption(s photoShown) string {
 			text += fmt.Sprintf(" (nearest CML %.0f m away)", *pl.DistanceM)
 		}
 	}
+	// A warning about the photo itself (its clock, its date) is said where
+	// the photo is, in words; its file and the warning's place are in the
+	// data checks appendix.
+	if ph.Path != "" {
+		for _, m := range d.warningsAt(ph.Path, 0) {
+			text += "\nNote: " + m
+		}
+	}
 	return text
 }
 
@@ -150,15 +159,9 @@ func (d *doc) caption(s photoShown) string {
 // component: those placed on an asset only, the unplaced ones with the
 // reason, and the files skipped.
 func (d *doc) unlinkedPhotos() {
-	d.newPage(false)
+	d.chapter(photoMaxH + 50)
 	d.heading(0, "Appendix A — Photos not placed on a CML or component")
-	var shown []photoShown
-	for _, ph := range d.s.Photos {
-		pl := ph.Placement
-		if e := d.photos[ph.Name]; e != nil && pl.CML == "" && pl.Component == "" {
-			shown = append(shown, photoShown{entry: e})
-		}
-	}
+	shown := d.unplacedPhotos()
 	if len(shown) == 0 {
 		d.text("Every photo is placed on a CML or component.")
 	} else {
@@ -169,11 +172,20 @@ func (d *doc) unlinkedPhotos() {
 		d.photoGrid(shown)
 	}
 	if len(d.s.Skipped) > 0 {
-		d.heading(1, "Files in the photos folder not used")
-		rows := make([][]string, len(d.s.Skipped))
-		for i, s := range d.s.Skipped {
-			rows[i] = []string{s.Name, s.Reason}
-		}
-		d.table([]column{{"File", 70, "L"}, {"Why", d.width() - 70, "L"}}, rows, nil, smallSize)
+		d.pdf.Ln(2)
+		d.text(fmt.Sprintf("%s in the photos folder could not be used (listed with the reason in %s).",
+			map[bool]string{true: "1 file", false: fmt.Sprintf("%d files", len(d.s.Skipped))}[len(d.s.Skipped) == 1], dataChecksTitle))
 	}
+}
+
+// unplacedPhotos are the photos placed on no CML or component.
+func (d *doc) unplacedPhotos() []photoShown {
+	var shown []photoShown
+	for _, ph := range d.s.Photos {
+		pl := ph.Placement
+		if e := d.photos[ph.Name]; e != nil && pl.CML == "" && pl.Component == "" {
+			shown = append(shown, photoShown{entry: e})
+		}
+	}
+	return shown
 }

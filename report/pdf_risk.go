@@ -13,12 +13,12 @@ import (
 // riskSection writes the 5×5 risk matrix with counts per cell, labelled in
 // words, and the components by their highest CML risk.
 func (d *doc) riskSection() {
-	d.newPage(false)
+	d.chapter(150)
 	d.heading(0, "Risk")
 	d.text("Risk per CML = likelihood × consequence, both on five levels. Likelihood comes from the remaining life the " +
 		"dates use (for a fitted rate its lower confidence bound, so rate uncertainty can only raise it): " + plan.LifeBands +
 		". Consequence is written per component (very low 1 … very high 5; not given: taken as high). Risk level: " +
-		"low 1-4, medium 5-9, high 10-14, very high 15-25. The bands are lossline's own.")
+		"low 1-4, medium 5-9, high 10-14, very high 15-25. The bands are lossline's own. " + bandsDiffer)
 	d.pdf.Ln(2)
 	m := d.f.Matrix
 	p := d.pdf
@@ -128,7 +128,7 @@ func (d *doc) planSection() {
 		return
 	}
 	cur := d.f.Settings.Plan.Costs.Currency
-	d.newPage(false)
+	d.chapter(120)
 	d.heading(0, "Repair plan")
 	p := rp.Plan
 	budgets := p.Budgets
@@ -221,3 +221,10 @@ func (d *doc) planTables(p plan.Plan, cur string, sub bool) {
 		{"Risk at year start", 11, "R"}, {valueTitle, 13, "R"}, {"Risk at end of plan", 12, "R"}, {"Missing (" + cur + ")", 15, "R"},
 		{"Why", 45, "L"}}, rows, nil, 7)
 }
+
+// bandsDiffer says in one sentence why the likelihood bands (1, 3, 5, 10
+// years; survey/plan) do not share the repair windows' boundaries (2, 5, 10
+// years; survey/wallloss).
+const bandsDiffer = "The likelihood bands (1, 3, 5 and 10 years) are not the repair windows (2, 5 and 10 years): " +
+	"the matrix needs five levels and splits the first five years more finely, while both use the same remaining life " +
+	"and meet at 5 and 10 years."

@@ -9,6 +9,9 @@ import (
 	"github.com/lossline/lossline/survey/wallloss"
 )
 
+// coverAssets is how many assets the cover names before it counts the rest.
+const coverAssets = 8
+
 // cover writes the first page: what was surveyed, by whom, and the headline figures.
 func (d *doc) cover() {
 	p := d.pdf
@@ -29,6 +32,10 @@ func (d *doc) cover() {
 	var assets []string
 	for _, a := range d.s.Assets {
 		assets = append(assets, a.Name)
+	}
+	if n := len(assets); n > coverAssets {
+		// A long list would push the cautions and the summary off their pages.
+		assets = append(assets[:coverAssets-1], fmt.Sprintf("and %d more (see the contents)", n-coverAssets+1))
 	}
 	for _, kv := range [][2]string{
 		{"Survey date", d.s.Date.Format(dateLayout)},
@@ -145,63 +152,43 @@ func (d *doc) cautions() error {
 func (d *doc) summary() {
 	d.newPage(false)
 	d.heading(0, "Summary")
+	d.summaryWords()
 	nComp := 0
 	for _, a := range d.s.Assets {
 		nComp += len(a.Components)
 	}
-	d.text(fmt.Sprintf("%d CMLs on %d components of %d assets. Each component is governed by its most urgent CML; "+
+	d.text(fmt.Sprintf("%s on %s of %s. Each component is governed by its most urgent CML; "+
 		"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
-		len(d.items), nComp, len(d.s.Assets), d.u.u, d.u.rateUnit))
+		plural(len(d.items), "CML", "CMLs"), plural(nComp, "component", "components"), plural(len(d.s.Assets), "asset", "assets"),
+		d.u.u, d.u.rateUnit))
 	d.pdf.Ln(2)
 	u := string(d.u.u)
 	cols := []column{
-		{"Component", 50, "L"}, {"CMLs", 11, "R"}, {"Governing CML", 18, "L"},
-		{"Thickness / required (" + u + ")", 26, "R"}, {"Rate (" + d.u.rateUnit + ")", 15, "R"}, {"Remaining life (y)", 18, "R"},
-		{"Next inspection", 21, "L"}, {"Status", 21, "L"},
+		{"Asset / component", 58, "L"}, {"CMLs", 9, "R"}, {"Governing CML", 15, "L"},
+		{"Thickness / required (" + u + ")", 24, "R"}, {"Rate (" + d.u.rateUnit + ")", 13, "R"}, {"Remaining life (y)", 16, "R"},
+		{"Next inspection", 19, "L"}, {"Repair window", d.width() - 154, "L"},
 	}
+	var rows [][]string
+	var styles []rowStyle
 	for _, a := range d.s.Assets {
-		var rows [][]string
-		var styles []rowStyle
 		for _, c := range a.Components {
 			g := d.f.Governing(c)
-			row := []string{c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
+			row := []string{a.Name + " / " + c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
 			st := rowStyle{}
 			if g != nil {
 				r := g.Result
 				row[2] = g.CML.ID
 				row[3] = d.u.thick(r.ThicknessMM) + " / " + d.u.thick(c.Design.RequiredMM)
-				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), status(r)+localStatus(g)
+				row[4], row[5], row[6], row[7] = d.u.rate(r.RateMMPerY), years(r.RemainingLifeY), day(r.NextInspection), repairWindow(r)+localStatus(g)
 				u := urgent(r) || localUrgent(g)
 				st = rowStyle{bold: u, shade: u}
 			}
 			rows = append(rows, row)
 			styles = append(styles, st)
 		}
-		d.heading(2, a.Name)
-		d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
 	}
+	d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
 
-	d.heading(1, "Scope limitations")
-	var open [][]string
-	for _, a := range d.s.Assets {
-		for _, c := range a.Components {
-			if c.OutOfScope {
-				open = append(open, []string{a.Name + " / " + c.Name, "out of scope at this visit (front matter scope:): its results date from earlier visits"})
-			}
-			for _, it := range c.Scope {
-				if !it.Done {
-					open = append(open, []string{a.Name + " / " + c.Name, it.Text})
-				}
-			}
-		}
-	}
-	if len(open) == 0 {
-		d.text("Every item of the scope checklists was done.")
-	} else {
-		d.text("These items of the scope checklists were not done. The results do not cover them.")
-		d.pdf.Ln(1)
-		d.table([]column{{"Asset / component", 70, "L"}, {"Not done", d.width() - 70, "L"}}, open, nil, smallSize)
-	}
 	if len(d.s.Notes) > 0 {
 		d.heading(1, "Survey notes")
 		d.notes(d.s.Notes)
@@ -214,14 +201,14 @@ func (d *doc) ranked() {
 	d.heading(0, "Ranked list of CMLs")
 	d.text(fmt.Sprintf("Most urgent first: at or below required, then shortest remaining life; ties by consequence, then CML id. "+
 		"Thicknesses in %s, rates in %s (the governing rate, the larger of long- and short-term). Rows at or below "+
-		"required or under 5 years of remaining life are in bold and shaded; the status column says why.", d.u.u, d.u.rateUnit))
+		"required or under 5 years of remaining life are in bold and shaded; the repair window column says why.", d.u.u, d.u.rateUnit))
 	d.pdf.Ln(2)
 	u := string(d.u.u)
 	cols := []column{
 		{"Rank", 11, "R"}, {"Asset / component", 50, "L"}, {"CML", 15, "L"},
 		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit + ")", 16, "R"},
 		{"Remaining life (y)", 19, "R"}, {"Retirement date", 21, "L"}, {"Next inspection", 21, "L"},
-		{"Conse- quence", 17, "L"}, {"Status", 27, "L"}, {"Flags", 34, "L"},
+		{"Conse- quence", 17, "L"}, {"Repair window", 27, "L"}, {"Flags", 34, "L"},
 	}
 	rows := make([][]string, len(d.items))
 	for i, it := range d.items {
@@ -233,7 +220,7 @@ func (d *doc) ranked() {
 		rows[i] = []string{
 			strconv.Itoa(it.Rank), it.Asset.Name + " / " + it.Component.Name, it.CML.ID,
 			d.u.thick(r.ThicknessMM), d.u.thick(it.Component.Design.RequiredMM), d.u.rate(r.RateMMPerY),
-			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, status(r) + localStatus(it), flagsText(r.Flags),
+			years(r.RemainingLifeY), day(r.Retirement), day(r.NextInspection), cons, repairWindow(r) + localStatus(it), flagsText(r.Flags),
 		}
 	}
 	d.table(cols, rows, func(i int) rowStyle {

@@ -3,6 +3,8 @@ package report
 import (
 	"fmt"
 	"math"
+	"sort"
+	"strconv"
 
 	"github.com/go-pdf/fpdf"
 
@@ -21,10 +23,11 @@ const (
 var windowShapes = map[wallloss.Window]struct {
 	shape  int // index into markerShapes
 	filled bool
+	size   float64 // half-width, mm: the most urgent largest
 }{
-	wallloss.WindowNow: {1, true}, wallloss.WindowUnder2: {2, true}, wallloss.Window2To5: {2, false},
-	wallloss.Window5To10: {3, false}, wallloss.WindowOver10: {0, false}, wallloss.WindowNoLoss: {0, true},
-	wallloss.WindowUnknown: {6, false},
+	wallloss.WindowNow: {1, true, 2.0}, wallloss.WindowUnder2: {2, true, 1.6}, wallloss.Window2To5: {2, false, 1.4},
+	wallloss.Window5To10: {3, false, 1.2}, wallloss.WindowOver10: {0, false, 1.0}, wallloss.WindowNoLoss: {5, false, 1.0},
+	wallloss.WindowUnknown: {6, false, 1.0},
 }
 
 // sitePlan draws an asset's CMLs and photos on a local metric plane, with
@@ -59,13 +62,21 @@ func (d *doc) sitePlan(a *survey.Asset) {
 		return
 	}
 	var photoNotes []string
+	if d.figPlan == nil {
+		d.figPlan = d.plannedFigures()
+	}
+	figs := d.figPlan
 	for _, ph := range d.s.Photos {
 		if ph.GPS != nil && ph.Placement.Asset == a.Name {
 			n := len(photoNotes) + 1
 			marks = append(marks, mark{at: *ph.GPS, label: fmt.Sprintf("P%d", n), photo: true})
-			note := fmt.Sprintf("P%d %s: %s", n, ph.Name, placedOn(ph.Placement))
+			fig := "not shown"
+			if f, ok := figs[ph.Name]; ok {
+				fig = "Figure " + strconv.Itoa(f)
+			}
+			note := fmt.Sprintf("P%d, %s: %s", n, fig, placedOn(ph.Placement))
 			if ph.Placement.DistanceM != nil {
-				note += fmt.Sprintf(" (%.0f m, %s)", *ph.Placement.DistanceM, ph.Placement.Basis)
+				note += fmt.Sprintf(" (%.0f m; %s)", *ph.Placement.DistanceM, ph.Placement.Words())
 			}
 			photoNotes = append(photoNotes, note)
 		}
@@ -95,26 +106,76 @@ func (d *doc) sitePlan(a *survey.Asset) {
 	p.Rect(x0, y0, w, h, "D")
 	p.ClipRect(x0, y0, w, h, false)
 	d.font("", 6.5)
-	for i, m := range marks {
-		px, py := toPage(xs[i], ys[i])
+	// Photos first, then CMLs from the least urgent to the most, so a CML is
+	// never hidden under a photo and the most urgent is drawn on top.
+	order := make([]int, len(marks))
+	for i := range order {
+		order[i] = i
+	}
+	urgency := func(m mark) int {
+		if m.photo {
+			return -1
+		}
+		return int(wallloss.WindowUnknown) - int(m.window)
+	}
+	sort.SliceStable(order, func(a, b int) bool { return urgency(marks[order[a]]) < urgency(marks[order[b]]) })
+	pxs, pys := make([]float64, len(marks)), make([]float64, len(marks))
+	for i := range marks {
+		pxs[i], pys[i] = toPage(xs[i], ys[i])
+	}
+	for _, i := range order {
+		m, px, py := marks[i], pxs[i], pys[i]
 		if m.photo {
 			p.SetLineWidth(0.2)
+			p.SetDrawColor(90, 90, 90)
 			p.Rect(px-1.3, py-0.9, 2.6, 1.8, "D")
 			p.Circle(px, py, 0.5, "D")
-			p.SetTextColor(70, 70, 70)
+			p.SetDrawColor(0, 0, 0)
 		} else {
 			ws := windowShapes[m.window]
-			marker(p, px, py, ws.shape, ws.filled)
-			p.SetTextColor(0, 0, 0)
+			markerSized(p, px, py, ws.shape, ws.filled, ws.size)
 		}
-		lw := p.GetStringWidth(m.label) + 1
-		if m.photo { // photo labels to the left, CML labels to the right
-			p.SetXY(px-1.8-lw, py-1.6)
-		} else {
-			p.SetXY(px+1.8, py-1.6)
-		}
-		p.CellFormat(lw, 3, m.label, "", 0, "L", false, 0, "")
 	}
+	// Labels, the most urgent placed first (nearest its marker); labels set
+	// off from a crowd of markers get a leader line.
+	byPriority := make([]int, len(order))
+	for k := range order {
+		byPriority[k] = order[len(order)-1-k]
+	}
+	lxs, lys, lws, lrs := make([]float64, len(marks)), make([]float64, len(marks)), make([]float64, len(marks)), make([]float64, len(marks))
+	for k, i := range byPriority {
+		lxs[k], lys[k], lrs[k] = pxs[i], pys[i], 1.6
+		if !marks[i].photo {
+			lrs[k] = windowShapes[marks[i].window].size + 0.4
+		}
+		d.font(map[bool]string{true: "B", false: ""}[!marks[i].photo && marks[i].window == wallloss.WindowNow], 6.5)
+		lws[k] = p.GetStringWidth(marks[i].label) + 0.6
+	}
+	spots := placeLabels(lxs, lys, lws, lrs, 2.8, box{x0 + 0.5, y0 + 0.5, w - 1, h - 1})
+	for k, i := range byPriority {
+		m, sp := marks[i], spots[k]
+		if sp.Leader {
+			p.SetLineWidth(0.15)
+			p.SetDrawColor(90, 90, 90)
+			cx := math.Max(sp.Box.X, math.Min(lxs[k], sp.Box.X+sp.Box.W))
+			cy := math.Max(sp.Box.Y, math.Min(lys[k], sp.Box.Y+sp.Box.H))
+			p.Line(lxs[k], lys[k], cx, cy)
+			p.SetDrawColor(0, 0, 0)
+		}
+		style := ""
+		if m.photo {
+			p.SetTextColor(70, 70, 70)
+		} else {
+			p.SetTextColor(0, 0, 0)
+			if m.window == wallloss.WindowNow {
+				style = "B"
+			}
+		}
+		d.font(style, 6.5)
+		p.SetXY(sp.Box.X, sp.Box.Y)
+		p.CellFormat(sp.Box.W, sp.Box.H, m.label, "", 0, "L", false, 0, "")
+	}
+	d.font("", 6.5)
 	p.SetTextColor(0, 0, 0)
 	p.ClipEnd()
 	d.northArrow(x0+w-4, y0-10)
@@ -132,14 +193,14 @@ func (d *doc) sitePlan(a *survey.Asset) {
 			x = margin
 			p.SetY(p.GetY() + 4)
 		}
-		marker(p, x+2, p.GetY()+1.5, ws.shape, ws.filled)
+		markerSized(p, x+2, p.GetY()+1.5, ws.shape, ws.filled, min(ws.size, 1.5))
 		p.SetXY(x+4.5, p.GetY())
 		p.CellFormat(lw-4.5, 3, label, "", 0, "L", false, 0, "")
 		x += lw
 	}
 	p.SetXY(margin, p.GetY()+4.5)
 	d.font("I", 7)
-	p.MultiCell(0, 3.3, fmt.Sprintf("CMLs by repair window (shape; the urgent ones also say it beside their id) and photos (P1, P2 … as listed below) "+
+	p.MultiCell(0, 3.3, fmt.Sprintf("CMLs by repair window (shape; the more urgent, the larger and darker, drawn above the others and above photos; the urgent ones also say it beside their id) and photos (P1, P2 … as listed below) "+
 		"on a local plane: equirectangular projection about %s (WGS 84), north up, scale error under 0.5 %% within a few km. "+
 		"Positions from the checklist's gps column and the photos' EXIF; no map background.", latLon(&plane.Origin)), "", "L", false)
 	if len(photoNotes) > 0 {

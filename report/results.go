@@ -116,6 +116,7 @@ type Item struct {
 	Likelihood        string     `json:"likelihood"`
 	RiskScore         int        `json:"risk_score"`
 	RiskLevel         string     `json:"risk_level"`
+	RepairWindow      string     `json:"repair_window"` // in words, as the report prints it
 	Flags             []string   `json:"flags"`
 	Photos            []string   `json:"photos"`
 	Intervals         []Interval `json:"intervals"`
@@ -197,6 +198,7 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 		}
 		risk := f.Risk(it)
 		item.Likelihood, item.RiskScore, item.RiskLevel = risk.Likelihood.String(), risk.Score(), risk.Level()
+		item.RepairWindow = repairWindow(it.Result)
 		ch := f.Changes[i]
 		item.Intervals, item.Change = []Interval{}, codes(ch.Codes)
 		for _, iv := range ch.Intervals {
