@@ -113,3 +113,38 @@ func TestSummaryWordsDeterministic(t *testing.T) {
 		t.Errorf("two runs differ or are empty:\n%v\n%v", a, b)
 	}
 }
+
+// Local damage and cathodic protection are named under Urgent whatever the
+// wall readings say: a member past its engineer's section-loss limit (the I
+// section by hand, parallel-axis theorem: bottom flange 20 → 16 mm loses
+// 6.41 % of the area, past 5 %), and a test point whose instant-off
+// potential −815 mV CSE misses −850 mV (NACE SP0169-2013 §6.2.2.1) with
+// 70 mV of polarisation, short of 100 mV. The next shortest wall life is the
+// shortest among all CMLs, not the second in the ranking.
+func TestSummaryWordsLocalDamageAndProtection(t *testing.T) {
+	src := wordsFront + "# Bridge\n\n## Girder\n\n- nominal: 20\n- required: 15\n- member: I\n" +
+		"  - depth: 600 mm\n  - top flange: 300 x 20\n  - web: 12\n  - bottom flange: 300 x 20\n" +
+		"  - measured bottom flange: 16\n  - allowed loss: 5 % of area\n  - set by: A. Engineer\n\n" +
+		"| CML | 2016-05-01 | 2021-05-01 |\n|---|---|---|\n| G-1 | 20.0 | 19.9 |\n\n" +
+		"## Shell\n\n- nominal: 8\n- required: 5\n\n| CML | 2016-05-01 | 2021-05-01 |\n|---|---|---|\n| S-1 | 7.0 | 6.5 |\n\n" +
+		"# CP\n\n## Bed\n\n| test point | date | electrode | on (mV) | off (mV) | native (mV) |\n|---|---|---|---|---|---|\n" +
+		"| TP-2 | 2021-05-01 | CSE | -930 | -815 | -745 |\n"
+	s, problems := survey.ParseChecklist("survey.md", []byte(src))
+	problems = append(problems, survey.ComputeRequired(s)...)
+	problems = append(problems, survey.ComputeElectro(s)...)
+	if problems = append(problems, survey.ComputeLocal(s)...); problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	w := Compute(s, Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25}).Summarize(testWordUnits)
+	urgent := strings.Join(w.Urgent, " ")
+	for _, want := range []string{
+		// S-1: 0.5 mm in 5.0 y = 0.100 mm/y; (6.5 − 5)/0.1 = 15.0 y, shorter than G-1's (19.9 − 15)/0.02 = 245 y.
+		"the shortest is S-1 with 15.0 years",
+		"Local damage on Bridge / Girder has reached its limit (section loss of a member (I shape): loss area 6.4 %",
+		"Cathodic protection: 1 test point does not meet its criterion at the latest visit: TP-2 on CP / Bed (not protected).",
+	} {
+		if !strings.Contains(urgent, want) {
+			t.Errorf("urgent %q lacks %q", urgent, want)
+		}
+	}
+}
