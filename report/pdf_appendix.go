@@ -38,6 +38,7 @@ func (d *doc) methods() error {
 		{"Year length", "365.25 days"},
 		{"Display units", fmt.Sprintf("thickness in %s, rates in %s (1 mil = 0.001 in; results.json in mm and mm/y)", d.u.u, d.u.rateUnit)},
 		{"Photos", fmt.Sprintf("long side at most %d px, JPEG quality %d", d.opts.Photos.LongSide, d.opts.Photos.Quality)},
+		{"Summary-first", d.limitsText()},
 		{"Report texts", tmpl},
 		{"Program", "lossline " + d.opts.Version},
 	}, 40)
@@ -63,8 +64,8 @@ func (d *doc) warningsAppendix() {
 	}
 	d.text("Problems found while reading the survey that did not stop the report. Check each one.")
 	d.pdf.Ln(1)
-	rows := make([][]string, len(all))
-	for i, w := range all {
+	rows := make([][]string, d.capRows(len(all)))
+	for i, w := range all[:len(rows)] {
 		place := w.File
 		if w.Line > 0 {
 			place += ":" + strconv.Itoa(w.Line)
@@ -72,4 +73,5 @@ func (d *doc) warningsAppendix() {
 		rows[i] = []string{place, w.Message}
 	}
 	d.table([]column{{"File and line", 70, "L"}, {"Warning", d.width() - 70, "L"}}, rows, nil, smallSize)
+	d.leftOut(len(rows), len(all), JSONFile+" (warnings)")
 }

@@ -45,6 +45,8 @@ func (d *doc) changesSection() {
 		d.text("Nothing changed at any CML.")
 	} else {
 		u := string(d.u.u)
+		all := len(changed)
+		changed = changed[:d.capRows(all)]
 		rows := make([][]string, len(changed))
 		styles := make([]rowStyle, len(changed))
 		for i, c := range changed {
@@ -69,10 +71,13 @@ func (d *doc) changesSection() {
 		d.table([]column{{"CML", 14, "L"}, {"Asset / component", 42, "L"}, {"Previous (" + u + ")", 24, "L"},
 			{"Now (" + u + ")", 24, "L"}, {"Repair window before → now", 34, "L"}, {"What changed", 42, "L"}},
 			rows, func(i int) rowStyle { return styles[i] }, smallSize)
+		d.leftOut(len(changed), all, d.exportsText()+" (the change column)")
 	}
 
 	if len(withIntervals) > 0 {
 		d.heading(1, "Rate over each interval")
+		all := len(withIntervals)
+		withIntervals = withIntervals[:d.capRows(all)]
 		rows := make([][]string, len(withIntervals))
 		for i, c := range withIntervals {
 			var parts []string
@@ -83,18 +88,20 @@ func (d *doc) changesSection() {
 		}
 		d.table([]column{{"CML", 16, "L"}, {"Interval: rate (" + d.u.rateUnit + "; negative where the wall read thicker)", 134, "L"},
 			{"Long-term (" + d.u.rateUnit + ")", 30, "R"}}, rows, nil, smallSize)
+		d.leftOut(len(withIntervals), all, JSONFile+" (the intervals of each item)")
 	}
 	if h == nil {
 		return
 	}
 	if len(h.Dropped) > 0 {
 		d.heading(1, "CMLs no longer listed")
-		rows := make([][]string, len(h.Dropped))
-		for i, x := range h.Dropped {
+		rows := make([][]string, d.capRows(len(h.Dropped)))
+		for i, x := range h.Dropped[:len(rows)] {
 			rows[i] = []string{x.ID, x.Asset + " / " + x.Component, x.Last.Date.String() + ": " + d.u.u.Format(x.Last.Governing()),
 				fmt.Sprintf("%s:%d", x.Last.File, x.Last.Line)}
 		}
 		d.table([]column{{"CML", 16, "L"}, {"Asset / component", 60, "L"}, {"Last reading (" + string(d.u.u) + ")", 34, "L"}, {"Where", 70, "L"}}, rows, nil, smallSize)
+		d.leftOut(len(rows), len(h.Dropped), JSONFile+" (dropped)")
 	}
 	if len(h.DesignChanges) > 0 {
 		d.heading(1, "Design data that changed")

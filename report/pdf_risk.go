@@ -106,6 +106,8 @@ func (d *doc) riskSection() {
 	d.heading(1, "Components by risk")
 	d.text("A component's risk is that of its worst CML, so a component does not grow riskier by having more CMLs; the repair plan weighs the same risk.")
 	d.pdf.Ln(1)
+	all := len(comps)
+	comps = comps[:d.capRows(all)]
 	rows := make([][]string, len(comps))
 	styles := make([]rowStyle, len(comps))
 	for i, c := range comps {
@@ -115,6 +117,7 @@ func (d *doc) riskSection() {
 	}
 	d.table([]column{{"Asset / component", 62, "L"}, {"Highest-risk CML", 22, "L"}, {"Likelihood", 24, "L"},
 		{"Consequence", 22, "L"}, {"Risk (worst CML)", 26, "L"}, {"CMLs at that risk", 24, "R"}}, rows, func(i int) rowStyle { return styles[i] }, smallSize)
+	d.leftOut(len(comps), all, JSONFile+" (each CML's risk_score and risk_level)")
 	d.breachSection()
 }
 

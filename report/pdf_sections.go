@@ -30,6 +30,9 @@ func (d *doc) cover() {
 	for _, a := range d.s.Assets {
 		assets = append(assets, a.Name)
 	}
+	if d.summaryFirst() && len(assets) > 12 {
+		assets = []string{fmt.Sprintf("%d assets, %s to %s, each summarised in the Summary", len(assets), assets[0], assets[len(assets)-1])}
+	}
 	for _, kv := range [][2]string{
 		{"Survey date", d.s.Date.Format(dateLayout)},
 		{"Inspector", d.s.Inspector},
@@ -148,10 +151,23 @@ func (d *doc) summary() {
 	for _, a := range d.s.Assets {
 		nComp += len(a.Components)
 	}
-	d.text(fmt.Sprintf("%d CMLs on %d components of %d assets. Each component is governed by its most urgent CML; "+
-		"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
-		len(d.items), nComp, len(d.s.Assets), d.u.u, d.u.rateUnit))
-	d.pdf.Ln(2)
+	if d.summaryFirst() {
+		d.text(fmt.Sprintf("%d CMLs on %d components of %d assets, summarised per asset. Thicknesses in %s, rates in %s, remaining life in years.",
+			len(d.items), nComp, len(d.s.Assets), d.u.u, d.u.rateUnit))
+		d.leftToExports()
+		d.assetSummaries()
+	} else {
+		d.text(fmt.Sprintf("%d CMLs on %d components of %d assets. Each component is governed by its most urgent CML; "+
+			"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
+			len(d.items), nComp, len(d.s.Assets), d.u.u, d.u.rateUnit))
+		d.pdf.Ln(2)
+		d.componentSummaries()
+	}
+	d.scopeAndNotes()
+}
+
+// componentSummaries writes one row per component, asset by asset.
+func (d *doc) componentSummaries() {
 	u := string(d.u.u)
 	cols := []column{
 		{"Component", 50, "L"}, {"CMLs", 11, "R"}, {"Governing CML", 18, "L"},
@@ -178,7 +194,10 @@ func (d *doc) summary() {
 		d.heading(2, a.Name)
 		d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
 	}
+}
 
+// scopeAndNotes writes the scope checklist items not done and the survey's notes.
+func (d *doc) scopeAndNotes() {
 	d.heading(1, "Scope limitations")
 	var open [][]string
 	for _, a := range d.s.Assets {
@@ -198,7 +217,9 @@ func (d *doc) summary() {
 	} else {
 		d.text("These items of the scope checklists were not done. The results do not cover them.")
 		d.pdf.Ln(1)
-		d.table([]column{{"Asset / component", 70, "L"}, {"Not done", d.width() - 70, "L"}}, open, nil, smallSize)
+		n := d.capRows(len(open))
+		d.table([]column{{"Asset / component", 70, "L"}, {"Not done", d.width() - 70, "L"}}, open[:n], nil, smallSize)
+		d.leftOut(n, len(open), "the scope checklists of survey.md")
 	}
 	if len(d.s.Notes) > 0 {
 		d.heading(1, "Survey notes")
@@ -208,6 +229,10 @@ func (d *doc) summary() {
 
 // ranked writes every CML of the survey in rank order, on landscape pages.
 func (d *doc) ranked() {
+	if d.summaryFirst() {
+		d.attentionList()
+		return
+	}
 	d.newPage(true)
 	d.heading(0, "Ranked list of CMLs")
 	d.text(fmt.Sprintf("Most urgent first: at or below required, then shortest remaining life; ties by consequence, then CML id. "+
