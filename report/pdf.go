@@ -70,6 +70,7 @@ type doc struct {
 	photos    map[string]*photoEntry
 	warnings  survey.ProblemList
 	attn      *attention // what a summary-first report shows in full; nil: every component in full
+	photoBook bool       // this is photos.pdf
 }
 
 // photoEntry is a photo prepared once, however many CMLs show it.

@@ -191,7 +191,7 @@ func (d *doc) attentionList() {
 // assetFigures are the counts of one asset in a summary-first report.
 type assetFigures struct {
 	cmls, comps, below, window, accelerating, notMeasured, attention int
-	worst, shortest, earliest                                      *survey.Assessed
+	worst, shortest, earliest                                        *survey.Assessed
 }
 
 // assetSummaries writes one table per asset: its counts, worst CML, shortest
@@ -233,7 +233,8 @@ func (d *doc) assetSummaries() {
 		}
 	}
 	u := string(d.u.u)
-	for _, a := range d.s.Assets {
+	detail := DetailFiles(d.s.Assets)
+	for i, a := range d.s.Assets {
 		f := figs[a]
 		worst, shortest, earliest := none, none, none
 		if w := f.worst; w != nil {
@@ -258,16 +259,34 @@ func (d *doc) assetSummaries() {
 			{"Earliest next inspection", earliest},
 		}
 		if d.opts.Detail {
-			rows = append(rows, []string{"Every component in full", DetailFile(a.Name)})
+			rows = append(rows, []string{"Every component in full", detail[i]})
 		}
 		d.heading(2, a.Name)
 		d.table([]column{{"Figure", 60, "L"}, {"Value", d.width() - 60, "L"}}, rows, nil, smallSize)
 	}
 }
 
-// DetailFile is the name of an asset's detail PDF: detail-<slug>.pdf, the
-// slug its name in lower case with runs of other characters as one dash.
-func DetailFile(asset string) string {
+// DetailFiles are the names of the assets' detail PDFs, in order:
+// detail-<slug>.pdf, the slug the asset's name in lower case with every run
+// of other characters as one dash; a slug already taken gets -2, -3, ...
+func DetailFiles(assets []*survey.Asset) []string {
+	names := make([]string, len(assets))
+	taken := map[string]bool{}
+	for i, a := range assets {
+		slug := assetSlug(a.Name)
+		name := "detail-" + slug + ".pdf"
+		for k := 2; taken[name]; k++ {
+			name = fmt.Sprintf("detail-%s-%d.pdf", slug, k)
+		}
+		taken[name] = true
+		names[i] = name
+	}
+	return names
+}
+
+// assetSlug is an asset's name in lower-case letters and digits, runs of
+// anything else as one dash ("asset" when nothing is left).
+func assetSlug(asset string) string {
 	var b strings.Builder
 	dash := false
 	for _, r := range strings.ToLower(asset) {
@@ -282,9 +301,9 @@ func DetailFile(asset string) string {
 		}
 	}
 	if b.Len() == 0 {
-		b.WriteString("asset")
+		return "asset"
 	}
-	return "detail-" + b.String() + ".pdf"
+	return b.String()
 }
 
 // assets writes each asset with all its components in full, or in a

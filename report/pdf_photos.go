@@ -24,13 +24,19 @@ type PhotoStage func(srcs []photo.Source, use func(i int, p photo.Prepared, err 
 // prepareAllPhotos has every photo the report shows prepared by
 // opts.PreparePhotos and registers each once. A photo that cannot be prepared
 // becomes a warning naming the file.
-func (d *doc) prepareAllPhotos() error {
+func (d *doc) prepareAllPhotos() error { return d.preparePhotos(nil, true) }
+
+// preparePhotos prepares the photos keep accepts (nil: all), and those
+// of earlier visits when before is set.
+func (d *doc) preparePhotos(keep func(*survey.Photo) bool, before bool) error {
 	var photos []*survey.Photo
 	var keys []string
 	for _, ph := range d.s.Photos {
-		photos, keys = append(photos, ph), append(keys, ph.Name)
+		if keep == nil || keep(ph) {
+			photos, keys = append(photos, ph), append(keys, ph.Name)
+		}
 	}
-	if h := d.s.History; h != nil {
+	if h := d.s.History; h != nil && before {
 		for _, it := range d.items {
 			for _, ph := range h.PreviousPhotos[it.CML] {
 				photos, keys = append(photos, ph), append(keys, ph.Name+"@before")
@@ -152,6 +158,10 @@ func (d *doc) caption(s photoShown) string {
 func (d *doc) unlinkedPhotos() {
 	d.newPage(false)
 	d.heading(0, "Appendix A — Photos not placed on a CML or component")
+	if d.opts.PhotosApart && !d.photoBook {
+		d.text("The photos are in " + PhotosFile + " beside this report, each captioned with the CML, component or asset it was placed on.")
+		return
+	}
 	var shown []photoShown
 	for _, ph := range d.s.Photos {
 		pl := ph.Placement

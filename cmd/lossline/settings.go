@@ -35,6 +35,7 @@ type settings struct {
 	AccelerationPct float64
 	Plan            plan.Settings // Budget 0: no plan
 	Read            survey.Options
+	Limits          report.Limits // when report.pdf turns summary-first
 	Import          columnMap    // import: the headers of import files' columns by key (intake.MapKeys)
 	Sources         []string     // files read, lowest precedence first
 	Listing         []settingRow // the settings the command uses, in the order of settingKeys
