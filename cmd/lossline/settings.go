@@ -36,9 +36,9 @@ type settings struct {
 	Plan            plan.Settings // Budget 0: no plan
 	Read            survey.Options
 	Limits          report.Limits // when report.pdf turns summary-first
-	Import          columnMap    // import: the headers of import files' columns by key (intake.MapKeys)
-	Sources         []string     // files read, lowest precedence first
-	Listing         []settingRow // the settings the command uses, in the order of settingKeys
+	Import          columnMap     // import: the headers of import files' columns by key (intake.MapKeys)
+	Sources         []string      // files read, lowest precedence first
+	Listing         []settingRow  // the settings the command uses, in the order of settingKeys
 }
 
 // settingRow is one setting a command used: its value and its default as
