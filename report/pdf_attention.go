@@ -347,3 +347,12 @@ func (d *doc) limitsText() string {
 		"and CMLs, the most urgent first, and cuts long lists at %d rows (list-max-rows); the exports hold every CML",
 		l.FullDetailMaxCMLs, l.FullDetailMaxComponents, mode, l.DetailWindowYears, l.ListMaxRows)
 }
+
+// someIDs joins CML ids, in a summary-first report at most 40 of them
+// followed by how many more results.json names.
+func (d *doc) someIDs(ids []string) string {
+	if !d.summaryFirst() || len(ids) <= 40 {
+		return strings.Join(ids, ", ")
+	}
+	return fmt.Sprintf("%s and %d more (%s)", strings.Join(ids[:40], ", "), len(ids)-40, JSONFile)
+}

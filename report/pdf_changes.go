@@ -25,6 +25,9 @@ func (d *doc) changesSection() {
 	if len(withIntervals) == 0 && h == nil {
 		return
 	}
+	if d.summaryFirst() {
+		changed, withIntervals = seriousChanges(changed), seriousChanges(withIntervals)
+	}
 	d.newPage(false)
 	d.heading(0, "Changes since the last visit")
 	intro := fmt.Sprintf("Each CML's latest visit compared with its previous one, with the same design data and settings. "+
@@ -36,6 +39,10 @@ func (d *doc) changesSection() {
 			files = append(files, fmt.Sprintf("%s (%s, %s)", e.File, e.Date.Format(dateLayout), e.Inspector))
 		}
 		intro += " Earlier surveys merged in: " + strings.Join(files, "; ") + "."
+	}
+	if d.summaryFirst() {
+		intro += " This report is summary-first: only CMLs that crossed the required thickness or are accelerating are listed; " +
+			"every CML's change and intervals are in " + d.exportsText() + "."
 	}
 	d.text(intro)
 	d.pdf.Ln(1)
@@ -128,4 +135,10 @@ func (d *doc) changesSection() {
 		d.heading(1, "Before and after")
 		d.photoGrid(pairs)
 	}
+}
+
+// seriousChanges keeps the changes with a serious code (crossed the required
+// thickness, accelerating), for a summary-first report.
+func seriousChanges(cs []survey.Change) []survey.Change {
+	return slices.DeleteFunc(cs, func(c survey.Change) bool { return !slices.ContainsFunc(c.Codes, survey.ChangeCode.Serious) })
 }
