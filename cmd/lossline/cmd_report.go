@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"runtime/debug"
 	"time"
 
 	"github.com/spf13/cobra"
@@ -41,6 +42,13 @@ func newReportCmd() *cobra.Command {
 }
 
 func runReport(c *cobra.Command, args []string) error {
+	if os.Getenv("GOGC") == "" {
+		// The survey and its findings stay live (about 1.6 KB a CML) while
+		// the outputs are rendered item by item; collecting at half the live
+		// heap again instead of the whole keeps the peak of a 300k-CML report
+		// under 1 GB for about a quarter more CPU time in collection.
+		defer debug.SetGCPercent(debug.SetGCPercent(50))
+	}
 	dir := survey.FolderOf(args[0])
 	out, _ := c.Flags().GetString("out")
 	if out == "" {
