@@ -69,8 +69,9 @@ type doc struct {
 	landscape bool
 	photos    map[string]*photoEntry
 	warnings  survey.ProblemList
-	attn      *attention // what a summary-first report shows in full; nil: every component in full
-	photoBook bool       // this is photos.pdf
+	attn      *attention  // what a summary-first report shows in full; nil: every component in full
+	photoBook bool        // this is photos.pdf
+	spool     *photoSpool // the prepared photos until output; nil: no photos
 }
 
 // photoEntry is a photo prepared once, however many CMLs show it.
@@ -151,7 +152,8 @@ func (d *doc) output(w io.Writer) error {
 	if err := d.pdf.Error(); err != nil {
 		return fmt.Errorf("PDF: %w", err)
 	}
-	if err := d.pdf.Output(&pageCompressor{w: w}); err != nil {
+	defer d.spool.close()
+	if err := d.pdf.Output(&pageCompressor{w: w, photos: d.spool}); err != nil {
 		return fmt.Errorf("PDF: %w", err)
 	}
 	return nil

@@ -17,10 +17,11 @@ import (
 // they are. It takes fpdf's output in one Write: fpdf hands over its whole
 // buffer at once, and the pass reads it without copying.
 type pageCompressor struct {
-	w   io.Writer
-	zw  *zlib.Writer
-	buf bytes.Buffer
-	err error
+	w      io.Writer
+	photos *photoSpool // writes the photos in place of their stand-ins; nil: none
+	zw     *zlib.Writer
+	buf    bytes.Buffer
+	err    error
 }
 
 // pageDict is the dictionary fpdf writes for an uncompressed page content stream.
@@ -87,7 +88,13 @@ func (c *pageCompressor) rewrite(pdf []byte) error {
 			}
 			data := pdf[i : i+l]
 			i += l + len("\nendstream\n")
-			if pageDict.Match(bytes.TrimSuffix(dict, nl)) {
+			if ph, ok := c.photos.photoOf(data); ok && bytes.Contains(dict, []byte("/Subtype /Image")) {
+				n, err := c.photos.writeImage(out, ph)
+				written += n
+				if err != nil {
+					return err
+				}
+			} else if pageDict.Match(bytes.TrimSuffix(dict, nl)) {
 				z, err := c.compress(data)
 				if err != nil {
 					return err

@@ -53,20 +53,33 @@ func (d *doc) preparePhotos(keep func(*survey.Photo) bool, before bool) error {
 	for i, ph := range photos {
 		srcs[i] = photo.Source{Path: ph.Path, Hash: ph.Hash, Orientation: ph.Orientation}
 	}
+	if d.spool == nil {
+		spool, err := newPhotoSpool()
+		if err != nil {
+			return err
+		}
+		d.spool = spool
+	}
+	var spoolErr error
 	d.opts.PreparePhotos(srcs, func(i int, p photo.Prepared, err error) {
 		ph, key := photos[i], keys[i]
-		if _, done := d.photos[key]; done {
+		if _, done := d.photos[key]; done || spoolErr != nil {
 			return
 		}
 		if err != nil {
 			d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", err)
 			return
 		}
-		d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(p.JPEG))
-		// fpdf keeps its own copy of the bytes; the entry keeps only the size.
+		// The photo waits in the spool file; fpdf holds only its stand-in.
+		stand, err := d.spool.add(p.JPEG)
+		if err != nil {
+			spoolErr = err
+			return
+		}
+		d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(stand))
 		d.photos[key] = &photoEntry{key: key, photo: ph, prep: photo.Prepared{Width: p.Width, Height: p.Height}}
 	})
-	return nil
+	return spoolErr
 }
 
 // Photo grid geometry, mm.
