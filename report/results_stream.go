@@ -1,6 +1,7 @@
 package report
 
 import (
+	"bytes"
 	"encoding/csv"
 	"encoding/json"
 	"io"
@@ -37,10 +38,13 @@ func WriteJSON(w io.Writer, f *findings.Findings, warnings survey.ProblemList) e
 	return sw.err
 }
 
-// jsonStream writes pieces of an indented JSON document, keeping the first error.
+// jsonStream writes pieces of an indented JSON document, keeping the first
+// error. Array elements go through one encoder and buffer, reused.
 type jsonStream struct {
 	w   io.Writer
 	err error
+	buf bytes.Buffer
+	enc *json.Encoder
 }
 
 func (s *jsonStream) raw(t string) {
@@ -62,6 +66,23 @@ func (s *jsonStream) value(v any, prefix string) {
 	_, s.err = s.w.Write(b)
 }
 
+// element writes v indented as an element of a top-level array, as
+// MarshalIndent would.
+func (s *jsonStream) element(v any) {
+	if s.err != nil {
+		return
+	}
+	if s.enc == nil {
+		s.enc = json.NewEncoder(&s.buf)
+		s.enc.SetIndent("    ", "  ")
+	}
+	s.buf.Reset()
+	if s.err = s.enc.Encode(v); s.err != nil {
+		return
+	}
+	_, s.err = s.w.Write(bytes.TrimSuffix(s.buf.Bytes(), []byte("\n")))
+}
+
 // array writes an array of n elements, a member of the top-level object.
 func (s *jsonStream) array(n int, at func(i int) any) {
 	if n == 0 {
@@ -73,7 +94,7 @@ func (s *jsonStream) array(n int, at func(i int) any) {
 		if i > 0 {
 			s.raw(",\n    ")
 		}
-		s.value(at(i), "    ")
+		s.element(at(i))
 	}
 	s.raw("\n  ]")
 }
