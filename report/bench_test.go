@@ -62,3 +62,40 @@ func benchmarkRender(b *testing.B, n int) {
 
 func BenchmarkRender10k(b *testing.B)  { benchmarkRender(b, 10_000) }
 func BenchmarkRender100k(b *testing.B) { benchmarkRender(b, 100_000) }
+
+// BenchmarkPageCompression writes the full-detail report.pdf of 10k CMLs
+// (every component in full, about 2,700 pages, no photos) with fpdf's own
+// compression (a new zlib writer per page) and with pageCompressor (one
+// reused); page building is outside the timing.
+func BenchmarkPageCompression(b *testing.B) {
+	if testing.Short() {
+		b.Skip("2,700 pages: not under -short")
+	}
+	f := scaleFindings(b, 10_000)
+	opts := testOptions()
+	opts.Limits = Limits{FullDetailMaxCMLs: 1 << 30, FullDetailMaxComponents: 1 << 30, DetailWindowYears: 5, ListMaxRows: 500}
+	for _, own := range []bool{true, false} {
+		name := map[bool]string{true: "fpdf", false: "reused"}[own]
+		b.Run(name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				b.StopTimer()
+				d := newDoc(f, opts)
+				d.pdf.SetCompression(own)
+				if err := d.sections(); err != nil {
+					b.Fatal(err)
+				}
+				b.StartTimer()
+				var err error
+				if own {
+					err = d.pdf.Output(io.Discard)
+				} else {
+					err = d.output(io.Discard)
+				}
+				if err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
