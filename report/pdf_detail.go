@@ -13,8 +13,12 @@ import (
 // them below its thresholds. Rankings, methods and warnings stay in report.pdf.
 func WriteAssetPDF(w io.Writer, f *findings.Findings, opts Options, a *survey.Asset) error {
 	d := newDoc(f, opts)
+	photos := "notes and photos"
+	if opts.PhotosApart {
+		photos = "notes (the photos are in " + PhotosFile + ")"
+	}
 	d.titlePage("Detail of "+a.Name, fmt.Sprintf("Every component of %s in full: design data, readings, results, trend, scope, "+
-		"notes and photos. The ranking of all CMLs, the plan, the methods and the warnings are in %s, which this file belongs to.", a.Name, PDFFile))
+		"%s. The ranking of all CMLs, the plan, the methods and the warnings are in %s, which this file belongs to.", a.Name, photos, PDFFile))
 	if err := d.cautions(); err != nil {
 		return err
 	}
