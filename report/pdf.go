@@ -97,6 +97,7 @@ func PDF(f *findings.Findings, opts Options) ([]byte, survey.ProblemList, error)
 // the limits of opts.
 func WritePDF(w io.Writer, f *findings.Findings, opts Options) (survey.ProblemList, error) {
 	d := newDoc(f, opts)
+	defer func() { d.spool.close() }() // on the ways out before output
 	nComp := 0
 	for _, a := range d.s.Assets {
 		nComp += len(a.Components)
@@ -149,10 +150,10 @@ func newDoc(f *findings.Findings, opts Options) *doc {
 
 // output writes the finished PDF to w, its pages compressed.
 func (d *doc) output(w io.Writer) error {
+	defer d.spool.close()
 	if err := d.pdf.Error(); err != nil {
 		return fmt.Errorf("PDF: %w", err)
 	}
-	defer d.spool.close()
 	if err := d.pdf.Output(&pageCompressor{w: w, photos: d.spool}); err != nil {
 		return fmt.Errorf("PDF: %w", err)
 	}

@@ -13,6 +13,7 @@ import (
 // them below its thresholds. Rankings, methods and warnings stay in report.pdf.
 func WriteAssetPDF(w io.Writer, f *findings.Findings, opts Options, a *survey.Asset) error {
 	d := newDoc(f, opts)
+	defer func() { d.spool.close() }() // on the ways out before output
 	photos := "notes and photos"
 	if opts.PhotosApart {
 		photos = "notes (the photos are in " + PhotosFile + ")"
@@ -36,6 +37,7 @@ func WriteAssetPDF(w io.Writer, f *findings.Findings, opts Options, a *survey.As
 // CML or component. Photos that cannot be read come back as warnings.
 func WritePhotosPDF(w io.Writer, f *findings.Findings, opts Options) (survey.ProblemList, error) {
 	d := newDoc(f, opts)
+	defer func() { d.spool.close() }() // on the ways out before output
 	d.warnings = nil // the text warnings are report.pdf's
 	d.photoBook = true
 	d.titlePage("Photos", fmt.Sprintf("The photos of the survey, component by component, each captioned with its CML, file, time and position. "+

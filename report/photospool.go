@@ -23,6 +23,7 @@ type photoSpool struct {
 	size   int64
 	photos []spooled
 	seen   map[[32]byte]int // photos by content, so equal photos are embedded once
+	closed bool
 }
 
 // spooled is one photo in the spool file: where, and what the image object says of it.
@@ -73,9 +74,10 @@ func (s *photoSpool) add(jpg []byte) ([]byte, error) {
 	return standIn(i), nil
 }
 
-// close removes the spool file.
+// close removes the spool file; closing again does nothing.
 func (s *photoSpool) close() {
-	if s != nil {
+	if s != nil && !s.closed {
+		s.closed = true
 		s.file.Close()
 		os.Remove(s.file.Name())
 	}

@@ -7,6 +7,7 @@ import (
 	"image/jpeg"
 	"io"
 	"math/rand/v2"
+	"os"
 	"runtime"
 	"runtime/debug"
 	"sync/atomic"
@@ -116,9 +117,14 @@ func TestPhotoMemoryFlat(t *testing.T) {
 func TestSpooledPhotosReadBack(t *testing.T) {
 	needPoppler(t)
 	f, opts := withPhotos(t, 3)
+	tmp := t.TempDir()
+	t.Setenv("TMPDIR", tmp)
 	pdf, _, err := PDF(f, opts)
 	if err != nil {
 		t.Fatal(err)
+	}
+	if left, _ := os.ReadDir(tmp); len(left) > 0 {
+		t.Errorf("the spool file is left: %v", left)
 	}
 	text, _ := pdfText(t, pdf)
 	for i := range 3 {
