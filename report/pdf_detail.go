@@ -38,7 +38,7 @@ func WriteAssetPDF(w io.Writer, f *findings.Findings, opts Options, a *survey.As
 func WritePhotosPDF(w io.Writer, f *findings.Findings, opts Options) (survey.ProblemList, error) {
 	d := newDoc(f, opts)
 	defer func() { d.spool.close() }() // on the ways out before output
-	d.warnings = nil // the text warnings are report.pdf's
+	d.warnings = nil                   // the text warnings are report.pdf's
 	d.photoBook = true
 	d.titlePage("Photos", fmt.Sprintf("The photos of the survey, component by component, each captioned with its CML, file, time and position. "+
 		"The results they illustrate are in %s, which this file belongs to.", PDFFile))
