@@ -23,12 +23,16 @@ func newReportCmd() *cobra.Command {
 		Use:   "report SURVEY",
 		Short: "Write report.pdf, results.json and results.csv for a survey folder",
 		Long: "Reads SURVEY/survey.md and SURVEY/photos, computes rates, remaining life and dates,\n" +
-			"and writes OUTDIR/report.pdf, results.json, results.csv and locations.geojson.\n" +
+			"and writes OUTDIR/report.pdf, results.json, results.csv and locations.geojson;\n" +
+			"with --detail assets also OUTDIR/detail-<asset>.pdf, with --photos separate OUTDIR/photos.pdf.\n" +
+			"Above full-detail-max-cmls CMLs or full-detail-max-components components report.pdf\n" +
+			"is summary-first; every CML stays in results.json and results.csv.\n" +
 			"OUTDIR is replaced whole, in one rename, once every output is written; a second run\n" +
 			"writing the same OUTDIR waits for the first. OUTDIR may not be the survey folder, lie in\n" +
 			"its photos folder or an earlier survey folder, or hold files lossline did not write.\n" +
 			"Input files are never changed.",
-		Example: "  lossline report site-2026 -o site-2026/report --previous site-2022",
+		Example: "  lossline report site-2026 -o site-2026/report --previous site-2022\n" +
+			"  lossline report refinery -o refinery/report --detail assets --photos separate",
 		Args:    cobra.ExactArgs(1),
 		RunE:    runReport,
 	}
