@@ -33,8 +33,8 @@ func newReportCmd() *cobra.Command {
 			"Input files are never changed.",
 		Example: "  lossline report site-2026 -o site-2026/report --previous site-2022\n" +
 			"  lossline report refinery -o refinery/report --detail assets --photos separate",
-		Args:    cobra.ExactArgs(1),
-		RunE:    runReport,
+		Args: cobra.ExactArgs(1),
+		RunE: runReport,
 	}
 	c.Flags().StringP("out", "o", "", "output `OUTDIR` (default SURVEY/report)")
 	c.Flags().Bool("no-photo-cache", false, "reduce every photo again instead of reusing the cache in the user cache folder")
