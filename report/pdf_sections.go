@@ -93,7 +93,10 @@ func (d *doc) headlines() {
 		p.SetFillColor(240, 240, 240)
 		p.Rect(x, y, w, 26, "FD")
 		p.SetXY(x, y+3)
-		d.font("B", 15)
+		size := 15.0
+		for d.font("B", size); size > 8 && p.GetStringWidth(f.value) > w-3; size-- {
+			d.font("B", size-1) // large surveys: "100000 of 100000" fits its box
+		}
 		p.CellFormat(w, 8, f.value, "", 0, "C", false, 0, "")
 		p.SetXY(x+2, y+13)
 		d.font("", smallSize)
