@@ -123,6 +123,7 @@ func TestSpooledPhotosReadBack(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	checkXref(t, pdf)
 	if left, _ := os.ReadDir(tmp); len(left) > 0 {
 		t.Errorf("the spool file is left: %v", left)
 	}

@@ -340,6 +340,7 @@ func TestPageCompressionKeepsThePDF(t *testing.T) {
 	if err := d2.pdf.Output(&theirs); err != nil {
 		t.Fatal(err)
 	}
+	checkXref(t, ours.Bytes())
 	a, pa := pdfText(t, ours.Bytes())
 	b, pb := pdfText(t, theirs.Bytes())
 	if a != b || pa != pb || pa < 10 {
@@ -350,5 +351,28 @@ func TestPageCompressionKeepsThePDF(t *testing.T) {
 	}
 	if r := float64(ours.Len()) / float64(theirs.Len()); r < 0.9 || r > 1.1 {
 		t.Errorf("size %d against fpdf's %d", ours.Len(), theirs.Len())
+	}
+}
+
+// checkXref checks, without a PDF reader's repairs, that startxref points at
+// the cross-reference table and each of its entries at its object's header
+// (PDF 32000-1:2008 §7.5.4, §7.5.5).
+func checkXref(t *testing.T, pdf []byte) {
+	t.Helper()
+	m := regexp.MustCompile(`startxref\n(\d+)\n%%EOF\n$`).FindSubmatch(pdf)
+	if m == nil {
+		t.Fatal("no startxref at the end")
+	}
+	at, _ := strconv.Atoi(string(m[1]))
+	if !bytes.HasPrefix(pdf[at:], []byte("xref\n0 ")) {
+		t.Fatalf("startxref %d does not point at the xref table", at)
+	}
+	lines := strings.Split(string(pdf[at:]), "\n")
+	n, _ := strconv.Atoi(strings.Fields(lines[1])[1])
+	for obj := 1; obj < n; obj++ {
+		off, _ := strconv.Atoi(strings.Fields(lines[2+obj])[0])
+		if want := strconv.Itoa(obj) + " 0 obj\n"; !bytes.HasPrefix(pdf[off:], []byte(want)) {
+			t.Fatalf("xref entry of object %d points at %q", obj, pdf[off:min(off+20, len(pdf))])
+		}
 	}
 }
