@@ -65,10 +65,3 @@ func ActionsCSV(r Results) ([]byte, error) {
 	w.Flush()
 	return b.Bytes(), w.Error()
 }
-
-// actionsFile is actions.csv as an output; its rows cannot fail to write
-// to memory.
-func actionsFile(r Results) File {
-	b, _ := ActionsCSV(r)
-	return File{ActionsCSVFile, b}
-}

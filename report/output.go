@@ -1,8 +1,10 @@
 package report
 
 import (
+	"bufio"
 	"errors"
 	"fmt"
+	"io"
 	"io/fs"
 	"os"
 	"path/filepath"
@@ -13,10 +15,13 @@ import (
 	"github.com/lossline/lossline/internal/folder"
 )
 
-// File is one output, rendered in memory.
+// File is one output: its content in memory, or a function that writes it
+// straight to its file.
 type File struct {
-	Name string
-	Data []byte
+	Name  string
+	Data  []byte                  // the content, when Write is nil
+	Write func(w io.Writer) error // writes the content; nil: Data
+	Size  int64                   // bytes written, set by WriteFolder
 }
 
 // Outputs are the names of the files Render writes.
@@ -107,25 +112,51 @@ func fill(dir string, files []File) error {
 	for i, f := range files {
 		names[i] = f.Name
 	}
-	marker := File{MarkerFile, []byte("Written by lossline report; the next run replaces this folder whole.\n" +
+	marker := File{Name: MarkerFile, Data: []byte("Written by lossline report; the next run replaces this folder whole.\n" +
 		strings.Join(names, "\n") + "\n")}
-	for _, f := range append([]File{marker}, files...) {
-		if err := writeFile(filepath.Join(dir, f.Name), f.Data); err != nil {
-			return fmt.Errorf("writing %s: %w", f.Name, err)
+	if err := writeFile(filepath.Join(dir, marker.Name), &marker); err != nil {
+		return fmt.Errorf("writing %s: %w", marker.Name, err)
+	}
+	for i := range files {
+		if err := writeFile(filepath.Join(dir, files[i].Name), &files[i]); err != nil {
+			return fmt.Errorf("writing %s: %w", files[i].Name, err)
 		}
 	}
 	return os.Chmod(dir, 0o755)
 }
 
-func writeFile(path string, data []byte) error {
+// writeFile writes one file, straight from its Write function when it has
+// one, and records its size.
+func writeFile(path string, file *File) error {
 	f, err := os.OpenFile(path, os.O_WRONLY|os.O_CREATE|os.O_EXCL, 0o644)
 	if err != nil {
 		return err
 	}
-	_, werr := f.Write(data)
+	counted := &countingWriter{w: f}
+	var werr error
+	if file.Write != nil {
+		b := bufio.NewWriterSize(counted, 1<<20)
+		werr = file.Write(b)
+		werr = errors.Join(werr, b.Flush())
+	} else {
+		_, werr = counted.Write(file.Data)
+	}
+	file.Size = counted.n
 	serr := f.Sync()
 	cerr := f.Close()
 	return errors.Join(werr, serr, cerr)
+}
+
+// countingWriter counts the bytes written through it.
+type countingWriter struct {
+	w io.Writer
+	n int64
+}
+
+func (c *countingWriter) Write(p []byte) (int, error) {
+	n, err := c.w.Write(p)
+	c.n += int64(n)
+	return n, err
 }
 
 // swap puts the new folder tmp in out's place, keeping the previous folder

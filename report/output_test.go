@@ -18,7 +18,7 @@ import (
 func outputs(run string) []File {
 	var files []File
 	for _, name := range Outputs {
-		files = append(files, File{name, []byte(run + " " + name)})
+		files = append(files, File{Name: name, Data: []byte(run + " " + name)})
 	}
 	return files
 }
@@ -73,7 +73,7 @@ func TestWriteFolderReplacesTheReportWhole(t *testing.T) {
 	assertRun(t, out, "first")
 	// A later run replaces every file; an output the new run does not write
 	// goes with the previous folder.
-	if err := WriteFolder(out, append(outputs("second"), File{"extra.txt", []byte("x")}), WriteOptions{}); err != nil {
+	if err := WriteFolder(out, append(outputs("second"), File{Name: "extra.txt", Data: []byte("x")}), WriteOptions{}); err != nil {
 		t.Fatal(err)
 	}
 	if err := WriteFolder(out, outputs("third"), WriteOptions{}); err != nil {
@@ -129,7 +129,7 @@ func TestWriteFolderFailureKeepsThePreviousReport(t *testing.T) {
 	}
 	// Writing fails midway: the third file cannot be created.
 	files := outputs("new")
-	files = append(files[:2], append([]File{{"sub/x", []byte("y")}}, files[2:]...)...)
+	files = append(files[:2], append([]File{{Name: "sub/x", Data: []byte("y")}}, files[2:]...)...)
 	if err := WriteFolder(out, files, WriteOptions{}); err == nil || !strings.Contains(err.Error(), "writing sub/x") {
 		t.Fatalf("got %v", err)
 	}

@@ -3,6 +3,7 @@ package report
 import (
 	"bytes"
 	"fmt"
+	"io"
 	"time"
 
 	"github.com/go-pdf/fpdf"
@@ -31,6 +32,12 @@ type Options struct {
 	Version       string    // lossline version, printed on the cover
 	// Settings lists every setting the report used, printed in the methods appendix.
 	Settings []SettingRow
+	// Limits say when the report turns summary-first; zero: DefaultLimits.
+	Limits Limits
+	// Detail: one detail PDF per asset beside report.pdf (--detail assets).
+	Detail bool
+	// PhotosApart: the photos go to photos.pdf, which report.pdf refers to.
+	PhotosApart bool
 }
 
 // SettingRow is one setting as used: its value and its default as text, and
@@ -66,6 +73,9 @@ type doc struct {
 	figures   []figure            // the photos drawn, in order: figure i+1 is figures[i]
 	warnAt    map[string][]string // warning messages by place (file:line, or file alone)
 	figPlan   map[string]int      // plannedFigures, computed once
+	attn      *attention          // what a summary-first report shows in full; nil: every component in full
+	photoBook bool                // this is photos.pdf
+	spool     *photoSpool         // the prepared photos until output; nil: no photos
 }
 
 // photoEntry is a photo prepared once, however many CMLs show it.
@@ -75,10 +85,46 @@ type photoEntry struct {
 	prep  photo.Prepared
 }
 
-// PDF renders report.pdf. Photos that cannot be read are left out and come
-// back as warnings, as do checklist lines with characters the fonts cannot
-// draw (TextWarnings).
+// PDF renders report.pdf in memory. Photos that cannot be read are left out
+// and come back as warnings, as do checklist lines with characters the
+// fonts cannot draw (TextWarnings).
 func PDF(f *findings.Findings, opts Options) ([]byte, survey.ProblemList, error) {
+	var b bytes.Buffer
+	warnings, err := WritePDF(&b, f, opts)
+	if err != nil {
+		return nil, nil, err
+	}
+	return b.Bytes(), warnings, nil
+}
+
+// WritePDF renders report.pdf to w, summary-first when the survey is over
+// the limits of opts.
+func WritePDF(w io.Writer, f *findings.Findings, opts Options) (survey.ProblemList, error) {
+	d := newDoc(f, opts)
+	defer func() { d.spool.close() }() // on the ways out before output
+	nComp := 0
+	for _, a := range d.s.Assets {
+		nComp += len(a.Components)
+	}
+	if overLimits(d.opts.Limits, len(d.items), nComp) {
+		d.attn = d.findAttention()
+	}
+	if !d.opts.PhotosApart {
+		if err := d.prepareAllPhotos(); err != nil {
+			return nil, err
+		}
+	}
+	if err := d.sections(); err != nil {
+		return nil, err
+	}
+	return d.warnings, d.output(w)
+}
+
+// newDoc starts a PDF with the report's fonts, metadata and footer.
+func newDoc(f *findings.Findings, opts Options) *doc {
+	if opts.Limits == (Limits{}) {
+		opts.Limits = DefaultLimits
+	}
 	pdf := textPDF{fpdf.New("P", "mm", "A4", "")}
 	s := f.Survey
 	disp := opts.Display.resolve(s.Units)
@@ -87,6 +133,8 @@ func PDF(f *findings.Findings, opts Options) ([]byte, survey.ProblemList, error)
 	pdf.SetMargins(margin, margin, margin)
 	pdf.SetAutoPageBreak(true, bottomGap)
 	pdf.SetCellMargin(0) // tables pad their own cells; SplitText then measures the same width
+	// Pages are compressed on output by pageCompressor, with one compressor.
+	pdf.SetCompression(false)
 	pdf.AddUTF8FontFromBytes(fontFamily, "", goregular.TTF)
 	pdf.AddUTF8FontFromBytes(fontFamily, "B", gobold.TTF)
 	pdf.AddUTF8FontFromBytes(fontFamily, "I", goitalic.TTF)
@@ -101,23 +149,22 @@ func PDF(f *findings.Findings, opts Options) ([]byte, survey.ProblemList, error)
 	pdf.SetCatalogSort(true)
 	pdf.AliasNbPages("{nb}")
 	pdf.SetFooterFunc(d.footer)
-
-	if err := d.prepareAllPhotos(); err != nil {
-		return nil, nil, err
-	}
-	if err := d.sections(); err != nil {
-		return nil, nil, err
-	}
-	if err := pdf.Error(); err != nil {
-		return nil, nil, fmt.Errorf("PDF: %w", err)
-	}
-	var b bytes.Buffer
-	if err := pdf.Output(&b); err != nil {
-		return nil, nil, fmt.Errorf("PDF: %w", err)
-	}
-	return b.Bytes(), d.warnings, nil
+	return d
 }
 
+// output writes the finished PDF to w, its pages compressed.
+func (d *doc) output(w io.Writer) error {
+	defer d.spool.close()
+	if err := d.pdf.Error(); err != nil {
+		return fmt.Errorf("PDF: %w", err)
+	}
+	if err := d.pdf.Output(&pageCompressor{w: w, photos: d.spool}); err != nil {
+		return fmt.Errorf("PDF: %w", err)
+	}
+	return nil
+}
+
+// sections writes the report's sections in order.
 func (d *doc) sections() error {
 	d.cover()
 	if err := d.cautions(); err != nil {
@@ -131,9 +178,7 @@ func (d *doc) sections() error {
 	d.riskSection()
 	d.planSection()
 	d.ranked()
-	for _, a := range d.s.Assets {
-		d.asset(a)
-	}
+	d.assets()
 	d.unlinkedPhotos()
 	d.photoIndex()
 	if err := d.methods(); err != nil {

@@ -41,6 +41,7 @@ func (d *doc) methods() error {
 		{"Year length", "365.25 days"},
 		{"Display units", fmt.Sprintf("thickness in %s, rates in %s (1 mil = 0.001 in; results.json in mm and mm/y)", d.u.u, d.u.rateUnit)},
 		{"Photos", fmt.Sprintf("long side at most %d px, JPEG quality %d", d.opts.Photos.LongSide, d.opts.Photos.Quality)},
+		{"Summary-first", d.limitsText()},
 		{"Report texts", tmpl},
 		{"Program", "lossline " + d.opts.Version},
 	}, 40)

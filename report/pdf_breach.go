@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"slices"
 	"strconv"
-	"strings"
 
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/plan"
@@ -109,8 +108,8 @@ func (d *doc) breachSection() {
 	if len(shown) == 0 {
 		d.text("No CML reaches 0.1 % by the end of the plan.")
 	} else {
-		rows := make([][]string, len(shown))
-		for i, r := range shown {
+		rows := make([][]string, d.capRows(len(shown)))
+		for i, r := range shown[:len(rows)] {
 			rate := none
 			if s := r.b.Spread; s.Kind >= plan.SpreadNormal {
 				rate = d.u.rate(&s.Rate) + " ± " + d.u.rate(&s.Scale)
@@ -121,6 +120,7 @@ func (d *doc) breachSection() {
 			}
 		}
 		d.table(cols, rows, nil, smallSize)
+		d.leftOut(len(rows), len(shown), JSONFile+" (breach_probability of each item)")
 	}
 	var md string
 	for _, g := range []struct {
@@ -132,7 +132,7 @@ func (d *doc) breachSection() {
 		{unknown, "no probability: no readings or no required thickness"},
 	} {
 		if len(g.ids) > 0 {
-			md += fmt.Sprintf("- %d CMLs %s: %s.\n", len(g.ids), g.what, strings.Join(g.ids, ", "))
+			md += fmt.Sprintf("- %d CMLs %s: %s.\n", len(g.ids), g.what, d.someIDs(g.ids))
 		}
 	}
 	if md != "" {

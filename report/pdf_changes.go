@@ -25,6 +25,9 @@ func (d *doc) changesSection() {
 	if len(withIntervals) == 0 && h == nil {
 		return
 	}
+	if d.summaryFirst() {
+		changed = seriousChanges(changed)
+	}
 	d.newPage(false)
 	d.heading(0, "Changes since the last visit")
 	intro := fmt.Sprintf("Each CML's latest visit compared with its previous one, with the same design data and settings. "+
@@ -37,6 +40,10 @@ func (d *doc) changesSection() {
 		}
 		intro += " Earlier surveys merged in: " + strings.Join(files, "; ") + " (their files: " + dataChecksTitle + ")."
 	}
+	if d.summaryFirst() {
+		intro += " This report is summary-first: only CMLs that crossed the required thickness or are accelerating are listed; " +
+			"every CML's change and intervals are in " + d.exportsText() + "."
+	}
 	d.text(intro)
 	d.pdf.Ln(1)
 
@@ -45,6 +52,8 @@ func (d *doc) changesSection() {
 		d.text("Nothing changed at any CML.")
 	} else {
 		u := string(d.u.u)
+		all := len(changed)
+		changed = changed[:d.capRows(all)]
 		rows := make([][]string, len(changed))
 		styles := make([]rowStyle, len(changed))
 		for i, c := range changed {
@@ -69,6 +78,7 @@ func (d *doc) changesSection() {
 		d.table([]column{{"CML", 14, "L"}, {"Asset / component", 42, "L"}, {"Previous (" + u + ")", 24, "L"},
 			{"Now (" + u + ")", 24, "L"}, {"Repair window before → now", 34, "L"}, {"What changed", 42, "L"}},
 			rows, func(i int) rowStyle { return styles[i] }, smallSize)
+		d.leftOut(len(changed), all, d.exportsText()+" (the change column)")
 	}
 
 	if h == nil {
@@ -76,11 +86,12 @@ func (d *doc) changesSection() {
 	}
 	if len(h.Dropped) > 0 {
 		d.heading(1, "CMLs no longer listed")
-		rows := make([][]string, len(h.Dropped))
-		for i, x := range h.Dropped {
+		rows := make([][]string, d.capRows(len(h.Dropped)))
+		for i, x := range h.Dropped[:len(rows)] {
 			rows[i] = []string{x.ID, x.Asset + " / " + x.Component, x.Last.Date.String() + ": " + d.u.u.Format(x.Last.Governing())}
 		}
 		d.table([]column{{"CML", 16, "L"}, {"Asset / component", 90, "L"}, {"Last reading (" + string(d.u.u) + ")", d.width() - 106, "L"}}, rows, nil, smallSize)
+		d.leftOut(len(rows), len(h.Dropped), JSONFile+" (dropped)")
 	}
 	if len(h.DesignChanges) > 0 {
 		d.heading(1, "Design data that changed")
@@ -132,4 +143,10 @@ func (d *doc) beforeAfterPairs() []photoShown {
 		pairs = append(pairs, photoShown{entry: before, cml: it.CML.ID, label: "Before"}, photoShown{entry: after, cml: it.CML.ID, label: "Now"})
 	}
 	return pairs
+}
+
+// seriousChanges keeps the changes with a serious code (crossed the required
+// thickness, accelerating), for a summary-first report.
+func seriousChanges(cs []survey.Change) []survey.Change {
+	return slices.DeleteFunc(cs, func(c survey.Change) bool { return !slices.ContainsFunc(c.Codes, survey.ChangeCode.Serious) })
 }

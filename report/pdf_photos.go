@@ -24,13 +24,19 @@ type PhotoStage func(srcs []photo.Source, use func(i int, p photo.Prepared, err 
 // prepareAllPhotos has every photo the report shows prepared by
 // opts.PreparePhotos and registers each once. A photo that cannot be prepared
 // becomes a warning naming the file.
-func (d *doc) prepareAllPhotos() error {
+func (d *doc) prepareAllPhotos() error { return d.preparePhotos(nil, true) }
+
+// preparePhotos prepares the photos keep accepts (nil: all), and those
+// of earlier visits when before is set.
+func (d *doc) preparePhotos(keep func(*survey.Photo) bool, before bool) error {
 	var photos []*survey.Photo
 	var keys []string
 	for _, ph := range d.s.Photos {
-		photos, keys = append(photos, ph), append(keys, ph.Name)
+		if keep == nil || keep(ph) {
+			photos, keys = append(photos, ph), append(keys, ph.Name)
+		}
 	}
-	if h := d.s.History; h != nil {
+	if h := d.s.History; h != nil && before {
 		for _, it := range d.items {
 			for _, ph := range h.PreviousPhotos[it.CML] {
 				photos, keys = append(photos, ph), append(keys, ph.Name+"@before")
@@ -47,20 +53,33 @@ func (d *doc) prepareAllPhotos() error {
 	for i, ph := range photos {
 		srcs[i] = photo.Source{Path: ph.Path, Hash: ph.Hash, Orientation: ph.Orientation}
 	}
+	if d.spool == nil {
+		spool, err := newPhotoSpool()
+		if err != nil {
+			return err
+		}
+		d.spool = spool
+	}
+	var spoolErr error
 	d.opts.PreparePhotos(srcs, func(i int, p photo.Prepared, err error) {
 		ph, key := photos[i], keys[i]
-		if _, done := d.photos[key]; done {
+		if _, done := d.photos[key]; done || spoolErr != nil {
 			return
 		}
 		if err != nil {
 			d.warnings.Warnf(ph.Path, 0, "photo left out of the report: %v", err)
 			return
 		}
-		d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(p.JPEG))
-		// fpdf keeps its own copy of the bytes; the entry keeps only the size.
+		// The photo waits in the spool file; fpdf holds only its stand-in.
+		stand, err := d.spool.add(p.JPEG)
+		if err != nil {
+			spoolErr = err
+			return
+		}
+		d.pdf.RegisterImageOptionsReader(key, fpdf.ImageOptions{ImageType: "JPG"}, bytes.NewReader(stand))
 		d.photos[key] = &photoEntry{key: key, photo: ph, prep: photo.Prepared{Width: p.Width, Height: p.Height}}
 	})
-	return nil
+	return spoolErr
 }
 
 // Photo grid geometry, mm.
@@ -161,6 +180,10 @@ func (d *doc) caption(s photoShown, n int) string {
 func (d *doc) unlinkedPhotos() {
 	d.chapter(photoMaxH + 50)
 	d.heading(0, "Appendix A — Photos not placed on a CML or component")
+	if d.opts.PhotosApart && !d.photoBook {
+		d.text("The photos are in " + PhotosFile + " beside this report, each captioned with the CML, component or asset it was placed on.")
+		return
+	}
 	shown := d.unplacedPhotos()
 	if len(shown) == 0 {
 		d.text("Every photo is placed on a CML or component.")

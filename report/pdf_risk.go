@@ -106,6 +106,8 @@ func (d *doc) riskSection() {
 	d.heading(1, "Components by risk")
 	d.text("A component's risk is that of its worst CML, so a component does not grow riskier by having more CMLs; the repair plan weighs the same risk.")
 	d.pdf.Ln(1)
+	all := len(comps)
+	comps = comps[:d.capRows(all)]
 	rows := make([][]string, len(comps))
 	styles := make([]rowStyle, len(comps))
 	for i, c := range comps {
@@ -115,6 +117,7 @@ func (d *doc) riskSection() {
 	}
 	d.table([]column{{"Asset / component", 62, "L"}, {"Highest-risk CML", 22, "L"}, {"Likelihood", 24, "L"},
 		{"Consequence", 22, "L"}, {"Risk (worst CML)", 26, "L"}, {"CMLs at that risk", 24, "R"}}, rows, func(i int) rowStyle { return styles[i] }, smallSize)
+	d.leftOut(len(comps), all, JSONFile+" (each CML's risk_score and risk_level)")
 	d.breachSection()
 }
 
@@ -195,21 +198,22 @@ func (d *doc) planTables(p plan.Plan, cur string, sub bool) {
 	if len(funded) == 0 {
 		d.text("Nothing can be funded.")
 	} else {
-		rows := make([][]string, len(funded))
-		for i, c := range funded {
+		rows := make([][]string, d.capRows(len(funded)))
+		for i, c := range funded[:len(rows)] {
 			rows[i] = []string{string(c.Status), strconv.Itoa(c.Year), c.Candidate.Name(), c.Candidate.Cost.String(),
 				strconv.Itoa(c.RiskBefore), strconv.Itoa(c.RiskAfter), value(c), c.Why}
 		}
 		d.table([]column{{"Status", 25, "L"}, {"Year", 9, "R"}, {"Asset / component", 36, "L"}, {"Cost (" + cur + ")", 17, "R"},
 			{"Risk at year start", 12, "R"}, {"After repair", 12, "R"}, {valueTitle, 14, "R"}, {"Why", 55, "L"}}, rows, nil, 7)
+		d.leftOut(len(rows), len(funded), "the output of lossline plan, which lists every row")
 	}
 	d.heading(level, "Not funded, with the risk they still carry")
 	if len(other) == 0 {
 		d.text("Nothing is deferred.")
 		return
 	}
-	rows := make([][]string, len(other))
-	for i, c := range other {
+	rows := make([][]string, d.capRows(len(other)))
+	for i, c := range other[:len(rows)] {
 		missing := ""
 		if c.Status == plan.StatusMandatoryUnfunded {
 			missing = c.Missing.String()
@@ -220,6 +224,7 @@ func (d *doc) planTables(p plan.Plan, cur string, sub bool) {
 	d.table([]column{{"Status", 25, "L"}, {"Asset / component", 32, "L"}, {"Cost (" + cur + ")", 16, "R"}, {"Numbers of year", 11, "R"},
 		{"Risk at year start", 11, "R"}, {valueTitle, 13, "R"}, {"Risk at end of plan", 12, "R"}, {"Missing (" + cur + ")", 15, "R"},
 		{"Why", 45, "L"}}, rows, nil, 7)
+	d.leftOut(len(rows), len(other), "the output of lossline plan, which lists every row")
 }
 
 // bandsDiffer says in one sentence why the likelihood bands (1, 3, 5, 10

@@ -98,7 +98,10 @@ func (d *doc) headlines() {
 		p.SetFillColor(240, 240, 240)
 		p.Rect(x, y, w, 26, "FD")
 		p.SetXY(x, y+3)
-		d.font("B", 15)
+		size := 15.0
+		for d.font("B", size); size > 8 && p.GetStringWidth(f.value) > w-3; size-- {
+			d.font("B", size-1) // large surveys: "100000 of 100000" fits its box
+		}
 		p.CellFormat(w, 8, f.value, "", 0, "C", false, 0, "")
 		p.SetXY(x+2, y+13)
 		d.font("", smallSize)
@@ -157,11 +160,28 @@ func (d *doc) summary() {
 	for _, a := range d.s.Assets {
 		nComp += len(a.Components)
 	}
-	d.text(fmt.Sprintf("%s on %s of %s. Each component is governed by its most urgent CML; "+
-		"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
-		plural(len(d.items), "CML", "CMLs"), plural(nComp, "component", "components"), plural(len(d.s.Assets), "asset", "assets"),
-		d.u.u, d.u.rateUnit))
-	d.pdf.Ln(2)
+	if d.summaryFirst() {
+		d.text(fmt.Sprintf("%s on %s of %s, summarised per asset. Thicknesses in %s, rates in %s, remaining life in years.",
+			plural(len(d.items), "CML", "CMLs"), plural(nComp, "component", "components"), plural(len(d.s.Assets), "asset", "assets"),
+			d.u.u, d.u.rateUnit))
+		d.leftToExports()
+		d.assetSummaries()
+	} else {
+		d.text(fmt.Sprintf("%s on %s of %s. Each component is governed by its most urgent CML; "+
+			"the full ranking of every CML follows this summary. Thicknesses in %s, rates in %s, remaining life in years.",
+			plural(len(d.items), "CML", "CMLs"), plural(nComp, "component", "components"), plural(len(d.s.Assets), "asset", "assets"),
+			d.u.u, d.u.rateUnit))
+		d.pdf.Ln(2)
+		d.componentSummaries()
+	}
+	if len(d.s.Notes) > 0 {
+		d.heading(1, "Survey notes")
+		d.notes(d.s.Notes)
+	}
+}
+
+// componentSummaries writes one row per component, asset by asset.
+func (d *doc) componentSummaries() {
 	u := string(d.u.u)
 	cols := []column{
 		{"Asset / component", 58, "L"}, {"CMLs", 9, "R"}, {"Governing CML", 15, "L"},
@@ -188,15 +208,14 @@ func (d *doc) summary() {
 		}
 	}
 	d.table(cols, rows, func(i int) rowStyle { return styles[i] }, smallSize)
-
-	if len(d.s.Notes) > 0 {
-		d.heading(1, "Survey notes")
-		d.notes(d.s.Notes)
-	}
 }
 
 // ranked writes every CML of the survey in rank order, on landscape pages.
 func (d *doc) ranked() {
+	if d.summaryFirst() {
+		d.attentionList()
+		return
+	}
 	d.newPage(true)
 	d.heading(0, "Ranked list of CMLs")
 	d.text(fmt.Sprintf("Most urgent first: at or below required, then shortest remaining life; ties by consequence, then CML id. "+

@@ -2,7 +2,6 @@ package report
 
 import (
 	"os"
-	"os/exec"
 	"path/filepath"
 	"regexp"
 	"strconv"
@@ -14,18 +13,6 @@ import (
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 )
-
-// needPoppler skips the test, or fails it under LOSSLINE_REQUIRE_POPPLER,
-// when pdftotext is missing.
-func needPoppler(t *testing.T) {
-	t.Helper()
-	if _, err := exec.LookPath("pdftotext"); err != nil {
-		if os.Getenv("LOSSLINE_REQUIRE_POPPLER") != "" {
-			t.Fatal("pdftotext not installed (poppler-utils)")
-		}
-		t.Skip("pdftotext not installed (poppler-utils)")
-	}
-}
 
 // demoPages renders the demo and reads its pages back with poppler's
 // pdftotext (an independent reader), one string per page.
@@ -182,7 +169,10 @@ func TestContentsOverSeveralPages(t *testing.T) {
 	if problems.HasErrors() {
 		t.Fatal(problems)
 	}
-	pdf, _, err := PDF(findings.Compute(s, findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25}), testOptions())
+	opts := testOptions()
+	opts.Limits = DefaultLimits
+	opts.Limits.FullDetailMaxComponents = 100 // every asset in full, each a chapter of the contents
+	pdf, _, err := PDF(findings.Compute(s, findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25}), opts)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -242,7 +232,10 @@ func TestCMLWarningInWordsUnderResults(t *testing.T) {
 	if msg == "" {
 		t.Fatalf("no warning at the row of C2: %v", s.Problems)
 	}
-	pdf, _, err := PDF(findings.Compute(s, findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25}), testOptions())
+	opts := testOptions()
+	opts.Limits = DefaultLimits
+	opts.Limits.FullDetailMaxComponents = 100 // every asset in full, each a chapter of the contents
+	pdf, _, err := PDF(findings.Compute(s, findings.Settings{Policy: wallloss.DefaultPolicy, AccelerationPct: 25}), opts)
 	if err != nil {
 		t.Fatal(err)
 	}

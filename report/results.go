@@ -157,73 +157,23 @@ type Warning struct {
 // BuildResults assembles the results of an assessed survey. warnings are the
 // reader's warnings plus any raised while rendering.
 func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
+	r := resultsFrame(f, warnings)
+	r.Items = make([]Item, len(f.Items))
+	for i, it := range f.Items {
+		r.Items[i] = buildItem(f, i, it)
+	}
+	return r
+}
+
+// resultsFrame is everything of the results but the items (left empty), which
+// WriteJSON streams one by one.
+func resultsFrame(f *findings.Findings, warnings survey.ProblemList) Results {
 	s := f.Survey
 	r := Results{
 		Survey: SurveyInfo{Title: s.Title, Site: s.Site, Date: s.Date.Format(dateLayout), Inspector: s.Inspector, Units: string(s.Units)},
 		Items:  []Item{}, Dropped: []Dropped{}, DesignChanges: []DesignChange{}, Warnings: []Warning{},
 		Photos: []PhotoInfo{}, Skipped: []SkippedInfo{}, Actions: actionsOf(f),
 	}
-	for i, it := range f.Items {
-		res, d := it.Result, it.Component.Design
-		item := Item{
-			Rank: it.Rank, Asset: it.Asset.Name, Component: it.Component.Name, CML: it.CML.ID, Location: it.CML.Location,
-			ThicknessDate:     dateOf(res.CurrentDate),
-			ThicknessMM:       round(res.ThicknessMM, 4),
-			RequiredMM:        round(d.RequiredMM, 4),
-			NominalMM:         round(d.NominalMM, 4),
-			RateLongMMPerY:    round(res.RateLongMMPerY, 6),
-			RateShortMMPerY:   round(res.RateShortMMPerY, 6),
-			RateMMPerY:        round(res.RateMMPerY, 6),
-			RateModel:         string(res.RateModel),
-			RemainingLifeY:    round(res.RemainingLifeY, 3),
-			RemainingLifeLowY: round(res.RemainingLifeLowY, 3),
-			NextExternal:      dateOf(res.NextExternal),
-			IntervalRule:      res.Rule.Code(),
-			RequiredMethod:    requiredMethod(d),
-			Estimate:          res.HasFlag(wallloss.FlagEstimate),
-			RetirementDate:    dateOf(res.Retirement),
-			NextInspection:    dateOf(res.NextInspection),
-			Flags:             codes(res.Flags),
-			Photos:            photoNames(f.Photos.OfCML(it.CML)),
-		}
-		if b := res.NextBasis.String(); b != "" {
-			item.NextInspectionWhy = &b
-		}
-		item.RateGoverning = rateGoverning(res)
-		if c := d.Consequence.String(); c != "" {
-			item.Consequence = &c
-		}
-		if g := it.CML.GPS; g != nil {
-			item.Latitude, item.Longitude = &g.Lat, &g.Lon
-		}
-		risk := f.Risk(it)
-		item.Likelihood, item.RiskScore, item.RiskLevel = risk.Likelihood.String(), risk.Score(), risk.Level()
-		item.RepairWindow = repairWindow(it.Result)
-		ch := f.Changes[i]
-		item.Intervals, item.Change = []Interval{}, codes(ch.Codes)
-		for _, iv := range ch.Intervals {
-			item.Intervals = append(item.Intervals, Interval{Start: iv.Start.Format(dateLayout), End: iv.End.Format(dateLayout), RateMMPerY: *round(&iv.RateMMPerY, 6)})
-		}
-		if n := len(it.CML.Visits); n >= 2 {
-			prev := it.CML.Visits[n-2]
-			item.PreviousDate = dateOf(&prev.Date.Time)
-			item.PreviousMM = round(ptrTo(prev.Governing()), 4)
-			if ch.Previous != nil {
-				item.PreviousRate = round(ch.Previous.RateMMPerY, 6)
-			}
-		}
-		b := f.BreachOf(it)
-		item.BreachModel = b.Model()
-		if b.P != nil {
-			item.Breach = make([]BreachYear, len(b.P))
-			for j, p := range b.P {
-				item.Breach[j] = BreachYear{By: b.By[j].Format(dateLayout), Probability: *round(&p, 6)}
-			}
-		}
-		item.LocalDamageLifeY, item.LocalDamage = localOfItem(it.Component)
-		r.Items = append(r.Items, item)
-	}
-	r.Grids, r.LocalDamage = localResults(s)
 	for _, ph := range s.Photos {
 		pl := ph.Placement
 		info := PhotoInfo{File: ph.Name, Orientation: ph.Orientation, Asset: pl.Asset, Component: pl.Component, CML: pl.CML,
@@ -254,7 +204,70 @@ func BuildResults(f *findings.Findings, warnings survey.ProblemList) Results {
 		r.Warnings = append(r.Warnings, Warning{File: w.File, Line: w.Line, Message: w.Message})
 	}
 	r.Electro, r.CPFailing = electroResults(f)
+	r.Grids, r.LocalDamage = localResults(s)
 	return r
+}
+
+// buildItem is the result of the i-th CML of the ranking.
+func buildItem(f *findings.Findings, i int, it *survey.Assessed) Item {
+	res, d := it.Result, it.Component.Design
+	item := Item{
+		Rank: it.Rank, Asset: it.Asset.Name, Component: it.Component.Name, CML: it.CML.ID, Location: it.CML.Location,
+		ThicknessDate:     dateOf(res.CurrentDate),
+		ThicknessMM:       round(res.ThicknessMM, 4),
+		RequiredMM:        round(d.RequiredMM, 4),
+		NominalMM:         round(d.NominalMM, 4),
+		RateLongMMPerY:    round(res.RateLongMMPerY, 6),
+		RateShortMMPerY:   round(res.RateShortMMPerY, 6),
+		RateMMPerY:        round(res.RateMMPerY, 6),
+		RateModel:         string(res.RateModel),
+		RemainingLifeY:    round(res.RemainingLifeY, 3),
+		RemainingLifeLowY: round(res.RemainingLifeLowY, 3),
+		NextExternal:      dateOf(res.NextExternal),
+		IntervalRule:      res.Rule.Code(),
+		RequiredMethod:    requiredMethod(d),
+		Estimate:          res.HasFlag(wallloss.FlagEstimate),
+		RetirementDate:    dateOf(res.Retirement),
+		NextInspection:    dateOf(res.NextInspection),
+		Flags:             codes(res.Flags),
+		Photos:            photoNames(f.Photos.OfCML(it.CML)),
+	}
+	if b := res.NextBasis.String(); b != "" {
+		item.NextInspectionWhy = &b
+	}
+	item.RateGoverning = rateGoverning(res)
+	item.RepairWindow = repairWindow(it.Result)
+	item.LocalDamageLifeY, item.LocalDamage = localOfItem(it.Component)
+	if c := d.Consequence.String(); c != "" {
+		item.Consequence = &c
+	}
+	if g := it.CML.GPS; g != nil {
+		item.Latitude, item.Longitude = &g.Lat, &g.Lon
+	}
+	risk := f.Risk(it)
+	item.Likelihood, item.RiskScore, item.RiskLevel = risk.Likelihood.String(), risk.Score(), risk.Level()
+	ch := f.Changes[i]
+	item.Intervals, item.Change = []Interval{}, codes(ch.Codes)
+	for _, iv := range ch.Intervals {
+		item.Intervals = append(item.Intervals, Interval{Start: iv.Start.Format(dateLayout), End: iv.End.Format(dateLayout), RateMMPerY: *round(&iv.RateMMPerY, 6)})
+	}
+	if n := len(it.CML.Visits); n >= 2 {
+		prev := it.CML.Visits[n-2]
+		item.PreviousDate = dateOf(&prev.Date.Time)
+		item.PreviousMM = round(ptrTo(prev.Governing()), 4)
+		if ch.Previous != nil {
+			item.PreviousRate = round(ch.Previous.RateMMPerY, 6)
+		}
+	}
+	b := f.BreachOf(it)
+	item.BreachModel = b.Model()
+	if b.P != nil {
+		item.Breach = make([]BreachYear, len(b.P))
+		for j, p := range b.P {
+			item.Breach[j] = BreachYear{By: b.By[j].Format(dateLayout), Probability: *round(&p, 6)}
+		}
+	}
+	return item
 }
 
 const dateLayout = "2006-01-02"

@@ -35,9 +35,10 @@ type settings struct {
 	AccelerationPct float64
 	Plan            plan.Settings // Budget 0: no plan
 	Read            survey.Options
-	Import          columnMap    // import: the headers of import files' columns by key (intake.MapKeys)
-	Sources         []string     // files read, lowest precedence first
-	Listing         []settingRow // the settings the command uses, in the order of settingKeys
+	Limits          report.Limits // when report.pdf turns summary-first
+	Import          columnMap     // import: the headers of import files' columns by key (intake.MapKeys)
+	Sources         []string      // files read, lowest precedence first
+	Listing         []settingRow  // the settings the command uses, in the order of settingKeys
 }
 
 // settingRow is one setting a command used: its value and its default as
