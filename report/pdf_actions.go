@@ -36,8 +36,8 @@ func (d *doc) actionsSection() {
 	intro += " Computed actions are worked out afresh from every survey's readings; an action the inspector writes carries into later surveys until one closes it. The id stays the same from survey to survey."
 	d.text(intro)
 	d.pdf.Ln(2)
-	rows := make([][]string, len(open))
-	for i, a := range open {
+	rows := make([][]string, d.capRows(len(open)))
+	for i, a := range open[:len(rows)] {
 		due := a.Due.Format(dateLayout)
 		if a.Status == actions.Overdue {
 			due += " OVERDUE"
@@ -50,14 +50,16 @@ func (d *doc) actionsSection() {
 		a := open[i]
 		return rowStyle{bold: a.Status == actions.Overdue || a.Priority == actions.Immediate, shade: a.Status == actions.Overdue}
 	}, smallSize)
+	d.leftOut(len(rows), len(open), ActionsCSVFile)
 	if len(closed) > 0 {
 		d.heading(2, "Actions closed by this survey")
-		rows := make([][]string, len(closed))
-		for i, a := range closed {
+		rows := make([][]string, d.capRows(len(closed)))
+		for i, a := range closed[:len(rows)] {
 			rows[i] = []string{a.Closed.Date.Format(dateLayout), a.ID, where(a), a.Reason, a.Closed.Note}
 		}
 		d.table([]column{{"Closed", 21, "L"}, {"Id", 26, "L"}, {"Asset / component / CML", 40, "L"},
 			{"Action", (w - 87) / 2, "L"}, {"What was done", (w - 87) / 2, "L"}}, rows, nil, smallSize)
+		d.leftOut(len(rows), len(closed), ActionsCSVFile)
 	}
 }
 

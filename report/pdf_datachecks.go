@@ -37,20 +37,22 @@ func (d *doc) dataChecks() {
 	} else {
 		d.text("Problems found while reading the survey that did not stop the report. Check each one.")
 		d.pdf.Ln(1)
-		rows := make([][]string, len(all))
-		for i, w := range all {
+		rows := make([][]string, d.capRows(len(all)))
+		for i, w := range all[:len(rows)] {
 			rows[i] = []string{place(w.File, w.Line), w.Message}
 		}
 		d.table([]column{{"File and line", 70, "L"}, {"Warning", d.width() - 70, "L"}}, rows, nil, smallSize)
+		d.leftOut(len(rows), len(all), JSONFile+" (warnings)")
 	}
 
 	if len(d.s.Skipped) > 0 {
 		d.heading(1, "Files in the photos folder not used")
-		rows := make([][]string, len(d.s.Skipped))
-		for i, s := range d.s.Skipped {
+		rows := make([][]string, d.capRows(len(d.s.Skipped)))
+		for i, s := range d.s.Skipped[:len(rows)] {
 			rows[i] = []string{s.Name, s.Reason}
 		}
 		d.table([]column{{"File", 70, "L"}, {"Why", d.width() - 70, "L"}}, rows, nil, smallSize)
+		d.leftOut(len(rows), len(d.s.Skipped), JSONFile+" (skipped_files)")
 	}
 
 	if h := d.s.History; h != nil && (len(h.Dropped) > 0 || len(h.DesignChanges) > 0) {
@@ -62,7 +64,10 @@ func (d *doc) dataChecks() {
 		for _, x := range h.DesignChanges {
 			rows = append(rows, []string{x.Asset + " / " + x.Component + ": earlier " + x.Field + " thickness", place(x.OldFile, x.OldLine)})
 		}
+		n := len(rows)
+		rows = rows[:d.capRows(n)]
 		d.table([]column{{"Value", 100, "L"}, {"File and line", d.width() - 100, "L"}}, rows, nil, smallSize)
+		d.leftOut(len(rows), n, JSONFile+" (dropped, design_changes)")
 	}
 
 	if len(d.opts.Settings) > 0 {
