@@ -109,16 +109,20 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 	},
 	"rusted area": func(d *Design, value string, _ Unit) error {
 		v, err := valueIn("rusted area", value, "%")
-		if err == nil && (v < 0 || v > 100) {
+		switch {
+		case err != nil:
+		case v < 0 || v > 100:
 			err = fmt.Errorf("rusted area: %g %% is not between 0 and 100", v)
+		case v < 1 && v > 0 && !strings.HasSuffix(strings.TrimSpace(value), "%"):
+			err = fmt.Errorf("rusted area: %q has no %% sign: write `%g %%` for a percentage (or `%g %%` if it is a fraction of the area)", strings.TrimSpace(value), v, v*100)
 		}
 		electroOf(d).Coating.RustedPct = &v
 		return err
 	},
 	"breakdown area": func(d *Design, value string, _ Unit) error {
 		v, err := valueIn("breakdown area", value, "m²", "m2")
-		if err == nil && v < 0 {
-			err = errors.New("breakdown area: an area cannot be negative")
+		if err == nil && v <= 0 {
+			err = errors.New("breakdown area: the area to recoat must be more than 0 m² (leave the key out when none needs recoating)")
 		}
 		electroOf(d).Coating.BreakdownM2 = &v
 		return err
@@ -128,11 +132,17 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 		if err == nil && v <= 0 {
 			err = errors.New("dft nominal: the nominal dry-film thickness must be positive")
 		}
+		if err == nil {
+			err = coatingMicrons("dft nominal", v)
+		}
 		electroOf(d).Coating.DFTNominalUM = &v
 		return err
 	},
 	"dft maximum": func(d *Design, value string, _ Unit) error {
 		v, err := valueIn("dft maximum", value, "µm", "um")
+		if err == nil {
+			err = coatingMicrons("dft maximum", v)
+		}
 		electroOf(d).Coating.DFTMaxUM = &v
 		return err
 	},
@@ -150,6 +160,9 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 			if v <= 0 {
 				return fmt.Errorf("dft readings: %g µm is not a thickness", v)
 			}
+			if err := coatingMicrons("dft readings", v); err != nil {
+				return err
+			}
 			rs = append(rs, v)
 		}
 		if len(rs) == 0 {
@@ -162,6 +175,9 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 		v, err := valueIn("zinc thickness", value, "µm", "um")
 		if err == nil && v <= 0 {
 			err = errors.New("zinc thickness: must be positive")
+		}
+		if err == nil {
+			err = coatingMicrons("zinc thickness", v)
 		}
 		electroOf(d).Coating.ZincUM = &v
 		return err
@@ -220,6 +236,9 @@ func (r *checklistReader) electroTable(t *tableBlock, names []string, headerLine
 			return true
 		}
 		dates = append(dates, d)
+	}
+	if len(t.rows) < 2 {
+		r.problems.Warnf(r.file, headerLine, "the %s table has no rows: write a row under the header, or leave the table out", kind)
 	}
 	line := headerLine
 	var cells []string
@@ -285,6 +304,9 @@ func (e *Electro) couponRow(c []string, line int) error {
 	if row.ID == "" {
 		return errors.New("no coupon id")
 	}
+	if l := duplicateID(e.Coupons, row.ID, func(o *CouponRow) (string, int) { return o.ID, o.Line }); l > 0 {
+		return fmt.Errorf("already in the table at line %d: give each coupon its own id", l)
+	}
 	a, err := electrochem.FindAlloy(row.Metal)
 	if err != nil {
 		return err
@@ -318,6 +340,9 @@ func (e *Electro) couponRow(c []string, line int) error {
 
 func (e *Electro) erRow(c []string, dates []VisitDate, line int) error {
 	p := &ERProbe{ID: strings.TrimSpace(c[0]), Line: line}
+	if l := duplicateID(e.ERProbes, p.ID, func(o *ERProbe) (string, int) { return o.ID, o.Line }); l > 0 {
+		return fmt.Errorf("already in the table at line %d: write each probe once, its readings under the date columns", l)
+	}
 	var err error
 	if p.SpanMM, err = cellNumber("span", c[1]); err != nil {
 		return err
@@ -337,6 +362,9 @@ func (e *Electro) erRow(c []string, dates []VisitDate, line int) error {
 
 func (e *Electro) lprRow(c []string, dates []VisitDate, line int) error {
 	p := &LPRProbe{ID: strings.TrimSpace(c[0]), Metal: strings.TrimSpace(c[1]), Line: line}
+	if l := duplicateID(e.LPRProbes, p.ID, func(o *LPRProbe) (string, int) { return o.ID, o.Line }); l > 0 {
+		return fmt.Errorf("already in the table at line %d: write each probe once, its readings under the date columns", l)
+	}
 	if _, err := electrochem.FindAlloy(p.Metal); err != nil {
 		return err
 	}
@@ -394,6 +422,11 @@ func (e *Electro) testPointRow(c []string, line int) error {
 			return err
 		}
 	}
+	for i, name := range []string{"on", "off", "native"} {
+		if err := checkPotential(name, *ps[i]); err != nil {
+			return err
+		}
+	}
 	if v.Potentials.On == nil && v.Potentials.Off == nil {
 		return errors.New("give an on or an off potential (mV)")
 	}
@@ -415,6 +448,9 @@ func (e *Electro) testPointRow(c []string, line int) error {
 
 func (e *Electro) anodeRow(c []string, line int) error {
 	row := &AnodeRow{ID: strings.TrimSpace(c[0]), Material: strings.TrimSpace(c[1]), Line: line, UseNote: strings.TrimSpace(c[5])}
+	if l := duplicateID(e.Anodes, row.ID, func(o *AnodeRow) (string, int) { return o.ID, o.Line }); l > 0 {
+		return fmt.Errorf("already in the table at line %d: give each anode its own id", l)
+	}
 	m, err := electrochem.FindAnodeMetal(row.Material)
 	if err != nil {
 		return err
