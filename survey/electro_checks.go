@@ -28,6 +28,9 @@ const (
 	erMaxSpanMM = 2.5
 	// A polarisation resistance (Ω·cm²) below this looks like kΩ·cm².
 	lprMinOhmCM2 = 10.0
+	// A Tafel slope or Stern–Geary B (mV) below this looks like volts:
+	// published B values are some 13 to 52 mV (ASTM G102, from memory).
+	tafelMinMV = 1.0
 	// A coating thickness (µm) below this looks like mm.
 	coatingMinUM = 1.0
 )
@@ -115,6 +118,16 @@ func (e *Electro) checkPlausible(file string, today time.Time, problems *Problem
 func coatingMicrons(key string, v float64) error {
 	if v > 0 && v < coatingMinUM {
 		return fmt.Errorf("%s: %g µm is under %g µm: looks like mm, write micrometres (%.6g µm)", key, v, coatingMinUM, v*1000)
+	}
+	return nil
+}
+
+// tafelMillivolts refuses Tafel slopes or a B written in volts.
+func tafelMillivolts(written string, vs ...float64) error {
+	for _, v := range vs {
+		if v > 0 && v < tafelMinMV {
+			return fmt.Errorf("B %q: %g mV is under %g mV: looks like volts, write millivolts (e.g. 120/120 for 0.12/0.12 V per decade)", written, v, tafelMinMV)
+		}
 	}
 	return nil
 }

@@ -379,6 +379,9 @@ func (e *Electro) lprRow(c []string, dates []VisitDate, line int) error {
 		if p.BetaC, err = cellNumber("cathodic Tafel slope", y); err != nil {
 			return err
 		}
+		if err := tafelMillivolts(b, p.BetaA, p.BetaC); err != nil {
+			return err
+		}
 	default:
 		v, err := cellNumber("B", b)
 		if err != nil {
@@ -386,6 +389,9 @@ func (e *Electro) lprRow(c []string, dates []VisitDate, line int) error {
 		}
 		if v <= 0 {
 			return errors.New("the Stern–Geary B must be positive")
+		}
+		if err := tafelMillivolts(b, v); err != nil {
+			return err
 		}
 		p.BmV = v
 	}

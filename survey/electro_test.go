@@ -170,6 +170,8 @@ func TestElectroProblems(t *testing.T) {
 		{"ER span in mils", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 10 | 100 | 200 |\n", "survey.md:12: warning: ER probe ER-1: span 10 mm is over 2.5 mm: looks like mils, write mm (0.254)"},
 		{"ER probe twice", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 0.254 | 100 | 200 |\n| ER-1 | 0.254 | 100 | 200 |\n", "survey.md:13: er probe ER-1: already in the table at line 12"},
 		{"LPR in kilohm", "\n| LPR probe | metal | B mV | 2026-01-01 |\n|-|-|-|-|\n| L | carbon steel | 26 | 2.6 |\n", "survey.md:12: warning: LPR probe L: a polarisation resistance under 10 Ω·cm² looks like kΩ·cm²"},
+		{"Tafel slopes in volts", "\n| LPR probe | metal | B mV | 2026-01-01 |\n|-|-|-|-|\n| L | carbon steel | 0.12/0.12 | 2600 |\n", `survey.md:12: lpr probe L: B "0.12/0.12": 0.12 mV is under 1 mV: looks like volts`},
+		{"B in volts", "\n| LPR probe | metal | B mV | 2026-01-01 |\n|-|-|-|-|\n| L | carbon steel | 0.026 | 2600 |\n", `survey.md:12: lpr probe L: B "0.026": 0.026 mV is under 1 mV: looks like volts`},
 		{"anode current in mA", anode + "| A1 | zinc | - | 5 | 55 | 0.8 |\n", "survey.md:12: warning: anode A1: current 55 A is over 10 A for one anode: looks like mA, write amperes (0.055)"},
 		{"anode mass in g", anode + "| A1 | zinc | 14500 | 3400 | 0.05 | 0.8 |\n", "survey.md:12: warning: anode A1: mass 14500 kg is over 1000 kg for one anode: looks like grams, write kg (14.5)"},
 		{"anode id twice", anode + "| A1 | zinc | - | 5 | 0.1 | 0.8 |\n| A1 | zinc | - | 4 | 0.1 | 0.8 |\n", "survey.md:13: anode A1: already in the table at line 12"},

@@ -157,6 +157,11 @@ func TestLocalDamageProblems(t *testing.T) {
 		{"too deep is repair, not an error", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 7\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "", false},
 		{"depth beyond wall", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 9\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "survey.md:11: corroded area: the depth must be at least 0 and less than the wall", false},
 		{"limit without engineer", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of Sx\n" + table, "survey.md:13: member: allowed loss: name the engineer", false},
+		// A measured plate ten times its nominal (a slipped decimal point) would
+		// count as a gain and hide the loss (mill over-tolerance is about a
+		// tenth: EN 10029, from memory).
+		{"measured plate over nominal", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - measured plate: 80\n" + table, "survey.md:13: member: measured plate: 80 mm is over 20 % more than its nominal 8 mm", false},
+		{"measured plate at mill tolerance", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - measured plate: 8.6\n" + table, "", false},
 		{"limit of an unknown quantity", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of J\n  - set by: A. B.\n" + table, `survey.md:13: member: allowed loss: "J" is not one of area, Ix, Iy, Sx, Sy`, false},
 		{"grid of a missing CML", "## C\n\n- nominal: 8\n" + table + "\n| grid B 2026-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: grid B: no CML B", false},
 		{"grid minimum not in the row", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 6.5 |\n", "survey.md:16: grid A: its minimum 6.5 mm (row a, column 1) is below the row's governing reading 7 mm", false},
