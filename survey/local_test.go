@@ -155,6 +155,8 @@ func TestLocalDamageProblems(t *testing.T) {
 		{"unknown input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n  - total area: 9 m2\n  - colour: red\n" + table, `survey.md:15: pits: "colour" is not an input`, false},
 		{"pressure without unit", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 2\n  - length: 50\n  - SMYS: 241\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:15: corroded area: SMYS: "241": give the unit`, false},
 		{"too deep is repair, not an error", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 7\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "", false},
+		// "65 %" once read as 0.65 mm: a depth as a share of the wall is not a length.
+		{"depth as a percentage", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 65 %\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:13: corroded area: depth: "65 %" is a percentage, not a length`, false},
 		{"depth beyond wall", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 9\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "survey.md:11: corroded area: the depth must be at least 0 and less than the wall", false},
 		{"limit without engineer", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of Sx\n" + table, "survey.md:13: member: allowed loss: name the engineer", false},
 		// A measured plate ten times its nominal (a slipped decimal point) would
