@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"slices"
 	"time"
+
+	"github.com/lossline/lossline/survey/electrochem"
 )
 
 // Plausible ranges of the electro tables' values. Outside them a value is
@@ -35,16 +37,20 @@ const (
 	coatingMinUM = 1.0
 )
 
-// checkPotential refuses a potential that is positive (a dropped minus sign)
-// or so small it was written in volts.
-func checkPotential(name string, v *float64) error {
-	switch {
-	case v == nil:
+// checkPotential refuses a potential that is positive against CSE (a dropped
+// minus sign) or so near 0 mV against CSE that it was written in volts. A zinc
+// electrode reads protected steel positive (+250 mV Zn is −850 mV CSE), so
+// the limits apply to the potential converted to CSE.
+func checkPotential(name string, v *float64, el electrochem.Electrode) error {
+	if v == nil {
 		return nil
-	case *v > potentialMaxMV:
-		return fmt.Errorf("%s potential %g mV is positive: the potential of protected steel is negative, write it with its minus sign (-%g)", name, *v, *v)
-	case *v > -voltsBelowMV && *v != 0:
-		return fmt.Errorf("%s potential %g mV looks like volts: write millivolts (%.6g)", name, *v, *v*1000)
+	}
+	cse := electrochem.Convert(*v, el, electrochem.CSE)
+	switch {
+	case cse > potentialMaxMV:
+		return fmt.Errorf("%s potential %g mV %s is %+.0f mV against CSE: the potential of protected steel is negative, write it with its minus sign", name, *v, el, cse)
+	case cse > -voltsBelowMV && cse != 0:
+		return fmt.Errorf("%s potential %g mV %s looks like volts: write millivolts (%.6g)", name, *v, el, *v*1000)
 	}
 	return nil
 }

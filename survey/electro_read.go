@@ -429,7 +429,7 @@ func (e *Electro) testPointRow(c []string, line int) error {
 		}
 	}
 	for i, name := range []string{"on", "off", "native"} {
-		if err := checkPotential(name, *ps[i]); err != nil {
+		if err := checkPotential(name, *ps[i], el); err != nil {
 			return err
 		}
 	}
