@@ -132,7 +132,7 @@ func coatingMicrons(key string, v float64) error {
 func tafelMillivolts(written string, vs ...float64) error {
 	for _, v := range vs {
 		if v > 0 && v < tafelMinMV {
-			return fmt.Errorf("B %q: %g mV is under %g mV: looks like volts, write millivolts (e.g. 120/120 for 0.12/0.12 V per decade)", written, v, tafelMinMV)
+			return fmt.Errorf("the B column %q: %g mV is under %g mV: looks like volts, write millivolts (e.g. 120/120 for 0.12/0.12 V per decade)", written, v, tafelMinMV)
 		}
 	}
 	return nil
