@@ -24,6 +24,9 @@ const (
 	offBeyondOnMV = 50.0
 	// Coupon mass (g) and area (cm²) outside these look like kg or m² / mm².
 	couponMinG, couponMinCM2, couponMaxCM2 = 1.0, 1.0, 1000.0
+	// A coupon's deepest pit (mm) over this is deeper than flush and strip
+	// coupons are thick (a few mm): µm written for mm.
+	couponMaxPitMM = 5.0
 	// An anode's current (A) or mass (kg) above these look like mA or g.
 	anodeMaxA, anodeMaxKG = 10.0, 1000.0
 	// An ER span (mm) above this looks like mils.
@@ -77,6 +80,9 @@ func (e *Electro) checkPlausible(file string, today time.Time, problems *Problem
 		after(c.Line, "coupon "+c.ID+": removed", c.Removed)
 		if c.Coupon.MassBeforeG > 0 && c.Coupon.MassBeforeG < couponMinG {
 			problems.Warnf(file, c.Line, "coupon %s: mass %g g is under %g g: looks like kilograms, write grams (%.6g)", c.ID, c.Coupon.MassBeforeG, couponMinG, c.Coupon.MassBeforeG*1000)
+		}
+		if p := c.Coupon.PitDepthMM; p > couponMaxPitMM {
+			problems.Warnf(file, c.Line, "coupon %s: deepest pit %g mm is over %g mm, deeper than a coupon is thick: looks like µm, write mm (%.6g)", c.ID, p, couponMaxPitMM, p/1000)
 		}
 		if a := c.Coupon.AreaCM2; a > 0 && a < couponMinCM2 {
 			problems.Warnf(file, c.Line, "coupon %s: area %g cm² is under %g cm²: looks like m², write cm² (%.6g)", c.ID, a, couponMinCM2, a*1e4)

@@ -168,6 +168,7 @@ func TestElectroProblems(t *testing.T) {
 		{"coupon mass in kg", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 0.010 | 0.0095 | 20 | - |\n", "survey.md:12: warning: coupon C: mass 0.01 g is under 1 g: looks like kilograms, write grams (10)"},
 		{"coupon area in m2", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.5 | 0.002 | - |\n", "survey.md:12: warning: coupon C: area 0.002 cm² is under 1 cm²: looks like m², write cm² (20)"},
 		{"coupon area in mm2", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.5 | 2000 | - |\n", "survey.md:12: warning: coupon C: area 2000 cm² is over 1000 cm²: looks like mm², write cm² (20)"},
+		{"coupon pit in µm", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.5 | 20 | 120 |\n", "survey.md:12: warning: coupon C: deepest pit 120 mm is over 5 mm, deeper than a coupon is thick: looks like µm, write mm (0.12)"},
 		{"coupon id twice", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.5 | 20 | - |\n| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.6 | 20 | - |\n", "survey.md:13: coupon C: already in the table at line 12"},
 		{"ER span in mils", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 10 | 100 | 200 |\n", "survey.md:12: warning: ER probe ER-1: span 10 mm is over 2.5 mm: looks like mils, write mm (0.254)"},
 		{"ER probe twice", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 0.254 | 100 | 200 |\n| ER-1 | 0.254 | 100 | 200 |\n", "survey.md:13: er probe ER-1: already in the table at line 12"},
