@@ -138,6 +138,9 @@ func (r *checklistReader) actionLine(src string, line int) bool {
 			a.CML = v
 		case "id":
 			a.ID = v
+			if p := computedIDPrefix(v); p != "" {
+				r.problems.Errorf(r.file, line, "action: id %s starts like the ids of computed actions (%s…): choose another, such as W-%s", v, p, strings.TrimPrefix(strings.ToUpper(v), p))
+			}
 		default:
 			r.problems.Errorf(r.file, line, "action: unknown key %q (keys: due, priority, cml, id)", f[1])
 		}
@@ -248,4 +251,19 @@ func openIDs(open []CarriedAction) string {
 		ids[i] = a.ID
 	}
 	return " (open: " + strings.Join(ids, ", ") + ")"
+}
+
+// computedIDPrefixes open the ids of the actions package's computed actions
+// (actions/actions.go); a written id starting so could name one of them.
+var computedIDPrefixes = []string{"REQ-", "INSP-", "LOCAL-", "SCOPE-", "RATE-", "REP-", "CP-"}
+
+// computedIDPrefix is the computed actions' prefix id starts with, or "".
+func computedIDPrefix(id string) string {
+	u := strings.ToUpper(id)
+	for _, p := range computedIDPrefixes {
+		if strings.HasPrefix(u, p) {
+			return p
+		}
+	}
+	return ""
 }

@@ -67,6 +67,7 @@ func TestWrittenActionProblems(t *testing.T) {
 		{"closed for close", "- closed DIG: 2024-06-01 dug", "survey.md:12: this looks like closing an action"},
 		{"closure without a colon", "- close DIG 2024-06-01 dug", "survey.md:12: this looks like closing an action"},
 		{"a note that starts with closed", "- Closed valve V-3: opened after the test", ""},
+		{"id of a computed action", "- action: Refit; due: 2025-06-01; priority: low; id: REQ-A1", "survey.md:12: action: id REQ-A1 starts like the ids of computed actions (REQ-…): choose another, such as W-A1"},
 		{"actions for action", "- actions: Refit; due: 2025-06-01; priority: low", "survey.md:12: this looks like an action"},
 	} {
 		src := strings.Replace(actionSurvey, line, c.new, 1)
