@@ -50,6 +50,8 @@ func checkPotential(name string, v *float64, el electrochem.Electrode) error {
 	}
 	cse := electrochem.Convert(*v, el, electrochem.CSE)
 	switch {
+	case cse > potentialMaxMV && cse < voltsBelowMV && el == electrochem.CSE:
+		return fmt.Errorf("%s potential %g mV %s looks like volts without the minus sign: write millivolts (%.6g)", name, *v, el, -*v*1000)
 	case cse > potentialMaxMV:
 		return fmt.Errorf("%s potential %g mV %s is %+.0f mV against CSE: the potential of protected steel is negative, write it with its minus sign", name, *v, el, cse)
 	case cse > -voltsBelowMV && cse != 0:

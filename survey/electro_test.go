@@ -162,6 +162,7 @@ func TestElectroProblems(t *testing.T) {
 		{"zinc electrode reads positive", tp + "| T | 2026-01-01 | Zn | 200 | 250 | - |\n", ""},
 		{"zinc electrode beyond CSE zero", tp + "| T | 2026-01-01 | Zn | 1300 | 1250 | - |\n", "survey.md:12: test point T: on potential 1300 mV Zn is +200 mV against CSE"},
 		{"potential in volts", tp + "| T | 2026-01-01 | CSE | -0.93 | -0.815 | - |\n", "survey.md:12: test point T: on potential -0.93 mV Cu/CuSO4 looks like volts: write millivolts (-930)"},
+		{"potential in volts without its sign", tp + "| T | 2026-01-01 | CSE | 0.93 | - | - |\n", "survey.md:12: test point T: on potential 0.93 mV Cu/CuSO4 looks like volts without the minus sign: write millivolts (-930)"},
 		{"on and off swapped", tp + "| T | 2026-01-01 | CSE | -815 | -930 | - |\n", "survey.md:12: warning: test point T: off -930 mV is more negative than on -815 mV"},
 		{"test point after the survey", tp + "| T | 2027-01-01 | CSE | -1000 | -900 | - |\n", "survey.md:12: test point T: date 2027-01-01 is after the survey date 2026-11-18"},
 		{"coupon removed after the survey", coupon + "| C | steel | 2026-01-01 | 2026-12-01 | 10 | 9.5 | 20 | - |\n", "survey.md:12: coupon C: removed 2026-12-01 is after the survey date"},
