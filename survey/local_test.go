@@ -151,6 +151,8 @@ func TestLocalDamageProblems(t *testing.T) {
 		{"unknown method", "## C\n\n- nominal: 8\n- pits: Weibull\n" + table, `survey.md:11: pits: "Weibull" is not one of: gumbel`, false},
 		{"missing input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n" + table, "survey.md:11: pits: give total area", false},
 		{"bad area unit", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 acre\n  - total area: 9 m2\n" + table, `survey.md:13: pits: sample area: "1 acre": unknown area unit`, false},
+		{"pit depths in inches", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 0.064 0.081 0.056 0.094\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "survey.md:12: warning: pits: depths: every pit is under 0.25 mm deep (deepest 0.094 mm): inches in a mm survey?", true},
+		{"pit depths in mm", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1.62 2.05 1.41 2.38\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "", true},
 		{"too few pits", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "survey.md:11: pits: 2 pit-depth samples", false},
 		{"unknown input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n  - total area: 9 m2\n  - colour: red\n" + table, `survey.md:15: pits: "colour" is not an input`, false},
 		{"pressure without unit", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 2\n  - length: 50\n  - SMYS: 241\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:15: corroded area: SMYS: "241": give the unit`, false},
