@@ -143,8 +143,11 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 		if err == nil {
 			err = coatingMicrons("dft maximum", v)
 		}
+		if err != nil {
+			return err // not kept: the judgement would run against 0 µm
+		}
 		electroOf(d).Coating.DFTMaxUM = &v
-		return err
+		return nil
 	},
 	"dft readings": func(d *Design, value string, _ Unit) error {
 		t := strings.TrimSpace(value)
