@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"slices"
 	"strings"
+	"unicode"
+	"unicode/utf8"
 
 	"github.com/lossline/lossline/survey/electrochem"
 	"github.com/lossline/lossline/survey/number"
@@ -30,12 +32,18 @@ func electroOf(d *Design) *Electro {
 func valueIn(key, value string, units ...string) (float64, error) {
 	t := strings.TrimSpace(value)
 	for _, u := range units {
-		if s, ok := strings.CutSuffix(t, u); ok {
+		// "cm2" does not end in the unit "m2": the unit must follow a number.
+		if s, ok := strings.CutSuffix(t, u); ok && !endsInLetter(s) {
 			t = s
 			break
 		}
 	}
 	v, err := number.Parse(t)
+	if f := strings.Fields(t); err != nil && len(f) == 2 {
+		if _, numErr := number.Parse(f[0]); numErr == nil {
+			return 0, fmt.Errorf("%s: the unit %q is not %s: write the value in %s", key, f[1], strings.Join(units, " or "), units[0])
+		}
+	}
 	if err != nil {
 		return 0, fmt.Errorf("%s: %w (units: %s)", key, err, strings.Join(units, " or "))
 	}
@@ -491,4 +499,10 @@ func (e *Electro) anodeRow(c []string, line int) error {
 	row.Anode = a
 	e.Anodes = append(e.Anodes, row)
 	return nil
+}
+
+// endsInLetter reports whether s ends in a letter.
+func endsInLetter(s string) bool {
+	r, _ := utf8.DecodeLastRuneInString(s)
+	return unicode.IsLetter(r)
 }

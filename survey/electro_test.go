@@ -184,6 +184,8 @@ func TestElectroProblems(t *testing.T) {
 		{"zinc in mm", "- corrosivity: C4\n- zinc thickness: 0.085\n", "survey.md:10: zinc thickness: 0.085 µm is under 1 µm: looks like mm, write micrometres (85 µm)"},
 		{"dft maximum below nominal", "- dft nominal: 250 um\n- dft maximum: 25 um\n- dft readings: 250 260 270\n", "survey.md:10: dft maximum 25 µm is not above the dft nominal 250 µm"},
 		{"rusted area as a fraction", "- rusted area: 0.02\n", "survey.md:9: rusted area: \"0.02\" has no % sign: write `0.02 %` for a percentage (or `2 %` if it is a fraction of the area)"},
+		{"dft in mm with its unit", "- dft nominal: 0.25 mm\n", `survey.md:9: dft nominal: the unit "mm" is not µm or um: write the value in µm`},
+		{"breakdown area in cm2", "- breakdown area: 140000 cm2\n", `survey.md:9: breakdown area: the unit "cm2" is not m² or m2: write the value in m²`},
 		{"no breakdown area", "- breakdown area: 0 m2\n", "survey.md:9: breakdown area: the area to recoat must be more than 0 m²"},
 	} {
 		_, problems := readElectro(t, head+c.body+tail)
