@@ -54,6 +54,13 @@ var (
 	actionItem  = regexp.MustCompile(`(?i)^action\s*:\s*(.*)$`)
 	closeItem   = regexp.MustCompile(`(?i)^close\s+(\S+?)\s*:\s*(.*)$`)
 	actionField = regexp.MustCompile(`^([A-Za-z]+)\s*:\s*(.*)$`)
+	// closeSlip is a list item meant to close an action but not written
+	// `close ID: DATE what was done`: `close: ID DATE …`, `closed ID: DATE …`,
+	// or the colon left out before the date.
+	// Each needs a date, so a note such as `closed valve V-3: …` stays a note.
+	closeSlip = regexp.MustCompile(`(?i)^(?:close[sd]?\s*:\s*\S+\s+\d{4}-\d\d-\d\d|close[sd]\s+\S+?\s*:\s*\d{4}-\d\d-\d\d|close[sd]?\s+\S+\s+\d{4}-\d\d-\d\d)`)
+	// actionSlip is `actions:` for `action:`.
+	actionSlip = regexp.MustCompile(`(?i)^actions\s*:`)
 )
 
 // actionLine reads a list item that is an action or closes one; it reports
@@ -76,6 +83,14 @@ func (r *checklistReader) actionLine(src string, line int) bool {
 			r.problems.Errorf(r.file, line, "close %s: %s is after the survey date %s", c.ID, date, r.survey.Date.Format(time.DateOnly))
 		}
 		r.survey.Closures = append(r.survey.Closures, c)
+		return true
+	}
+	if closeSlip.MatchString(src) {
+		r.problems.Errorf(r.file, line, "this looks like closing an action: write `close ID: DATE what was done` (e.g. `close P-DIG: 2026-11-18 excavated and measured`)")
+		return true
+	}
+	if actionSlip.MatchString(src) {
+		r.problems.Errorf(r.file, line, "this looks like an action: write `action: what is to be done; due: DATE; priority: PRIORITY`")
 		return true
 	}
 	m := actionItem.FindStringSubmatch(src)
@@ -123,6 +138,9 @@ func (r *checklistReader) actionLine(src string, line int) bool {
 			a.CML = v
 		case "id":
 			a.ID = v
+			if p := computedIDPrefix(v); p != "" {
+				r.problems.Errorf(r.file, line, "action: id %s starts like the ids of computed actions (%s…): choose another, such as W-%s", v, p, strings.TrimPrefix(strings.ToUpper(v), p))
+			}
 		default:
 			r.problems.Errorf(r.file, line, "action: unknown key %q (keys: due, priority, cml, id)", f[1])
 		}
@@ -233,4 +251,19 @@ func openIDs(open []CarriedAction) string {
 		ids[i] = a.ID
 	}
 	return " (open: " + strings.Join(ids, ", ") + ")"
+}
+
+// computedIDPrefixes open the ids of the actions package's computed actions
+// (actions/actions.go); a written id starting so could name one of them.
+var computedIDPrefixes = []string{"REQ-", "INSP-", "LOCAL-", "SCOPE-", "RATE-", "REP-", "CP-"}
+
+// computedIDPrefix is the computed actions' prefix id starts with, or "".
+func computedIDPrefix(id string) string {
+	u := strings.ToUpper(id)
+	for _, p := range computedIDPrefixes {
+		if strings.HasPrefix(u, p) {
+			return p
+		}
+	}
+	return ""
 }

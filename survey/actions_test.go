@@ -62,9 +62,22 @@ func TestWrittenActionProblems(t *testing.T) {
 		{"id used twice", "- action: Refit; due: 2025-06-01; priority: low; id: DIG", "survey.md:13: action: id DIG is already used at line 12"},
 		{"closure without a date", "- close DIG: soon dug", `survey.md:12: close DIG: "soon" is not a date`},
 		{"closure without a note", "- close DIG: 2024-06-01", "survey.md:12: close DIG: say what was done"},
+		// Slips that would leave an action open without a sign (common practice).
+		{"closure with the colon first", "- close: DIG 2024-06-01 dug", "survey.md:12: this looks like closing an action: write `close ID: DATE what was done`"},
+		{"closed for close", "- closed DIG: 2024-06-01 dug", "survey.md:12: this looks like closing an action"},
+		{"closure without a colon", "- close DIG 2024-06-01 dug", "survey.md:12: this looks like closing an action"},
+		{"a note that starts with closed", "- Closed valve V-3: opened after the test", ""},
+		{"id of a computed action", "- action: Refit; due: 2025-06-01; priority: low; id: REQ-A1", "survey.md:12: action: id REQ-A1 starts like the ids of computed actions (REQ-…): choose another, such as W-A1"},
+		{"actions for action", "- actions: Refit; due: 2025-06-01; priority: low", "survey.md:12: this looks like an action"},
 	} {
 		src := strings.Replace(actionSurvey, line, c.new, 1)
 		_, problems := ParseChecklist("survey.md", []byte(src))
+		if c.want == "" {
+			if problems.HasErrors() {
+				t.Errorf("%s: want no error, got %v", c.name, problems)
+			}
+			continue
+		}
 		found := false
 		for _, p := range problems {
 			found = found || strings.HasPrefix(p.String(), c.want)

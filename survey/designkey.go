@@ -27,6 +27,17 @@ var designKeyAliases = map[string]string{
 	"corrosion rate":             "assumed rate",
 	"repair costs":               "repair cost",
 	"cost":                       "repair cost",
+	"replaced":                   "repaired",
+	"replaced on":                "repaired",
+	"repaired on":                "repaired",
+	"repair date":                "repaired",
+	"date repaired":              "repaired",
+	"galvanizing thickness":      "zinc thickness",
+	"galvanising thickness":      "zinc thickness",
+	"dft":                        "dft readings",
+	"dry film thickness":         "dft readings",
+	"gauge":                      "instrument",
+	"instrument serial":          "instrument",
 }
 
 // nearDesignKey returns the design key that key (lower case, single spaces) is

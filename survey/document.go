@@ -115,6 +115,7 @@ func (r *checklistReader) documentFrontMatter(m map[string]any) {
 		} else if sig.Role == "approved" && e.text("date") == "" {
 			r.problems.Warnf(r.file, e.line, "sign-off: approved by %s has no date: the report is marked DRAFT until the approval is dated", sig.Name)
 		}
+		checkSignOrder(r, d.SignOff, sig, e.keyLine("date"))
 		d.SignOff = append(d.SignOff, sig)
 	}
 	for _, e := range r.entries(m, "revisions", []string{"revision", "date", "description"}) {
@@ -122,8 +123,12 @@ func (r *checklistReader) documentFrontMatter(m map[string]any) {
 		if rev.Revision == "" {
 			r.problems.Errorf(r.file, e.line, "revisions: the entry has no revision")
 		}
+		if i := slices.IndexFunc(d.Revisions, func(v Revision) bool { return v.Revision == rev.Revision }); rev.Revision != "" && i >= 0 {
+			r.problems.Errorf(r.file, e.line, "revisions: revision %s is listed twice (first at line %d): give each issue its own revision", rev.Revision, d.Revisions[i].Line)
+		}
 		if t, ok := e.date("date"); ok {
 			rev.Date = t
+			checkRevisionDate(r, d.Revisions, rev, e.keyLine("date"))
 		} else if e.text("date") == "" {
 			r.problems.Errorf(r.file, e.line, "revisions: revision %s has no date", rev.Revision)
 		}

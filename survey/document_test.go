@@ -82,6 +82,14 @@ func TestDocumentControlProblems(t *testing.T) {
 		{"calibrated after the survey", "calibrated: 2026-06-01", "calibrated: 2026-12-01", "survey.md:28: instruments: G-1 calibrated on 2026-12-01, after the survey date 2026-11-18"},
 		// 12 months: a common-practice calibration interval.
 		{"calibration over 12 months old", "calibrated: 2026-06-01", "calibrated: 2025-11-17", "survey.md:28: warning: instruments: G-1 calibrated on 2025-11-17, more than 12 months"},
+		// Dates a tired hand slips on (common practice: a report is reviewed
+		// and approved after it is prepared, and revised after the survey).
+		{"approved before prepared", "    date: 2026-11-25\nrevisions", "    date: 2026-11-19\nrevisions", "survey.md:18: warning: sign-off: approved on 2026-11-19, before it was prepared on 2026-11-20"},
+		{"revision before the survey", "  - revision: C\n    date: 2026-11-25", "  - revision: C\n    date: 2026-11-10", "survey.md:21: revisions: revision C on 2026-11-10, before the survey date 2026-11-18"},
+		{"revisions out of order", "  - revision: C\n    date: 2026-11-25", "  - revision: B\n    date: 2026-11-26\n    description: draft\n  - revision: C\n    date: 2026-11-25",
+			"survey.md:24: warning: revisions: revision C on 2026-11-25, before revision B above it (2026-11-26)"},
+		{"revision twice", "  - revision: C\n    date: 2026-11-25", "  - revision: C\n    date: 2026-11-24\n    description: draft\n  - revision: C\n    date: 2026-11-25",
+			"survey.md:23: revisions: revision C is listed twice (first at line 20)"},
 		{"unknown instrument", "- instrument: G-1", "- instrument: G-9", "survey.md:35: instrument: G-9 is not a serial of the instruments list"},
 		{"sign-off not a list", "sign-off:\n  - role: prepared\n    name: A. Author\n    qualification: cert 1\n    date: 2026-11-20\n  - role: approved\n    name: B. Boss\n    date: 2026-11-25\n",
 			"sign-off: A. Author\n", "survey.md:11: sign-off: write a list"},

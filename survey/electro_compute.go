@@ -26,6 +26,7 @@ func ComputeElectro(s *Survey) ProblemList {
 func (e *Electro) compute(c *Component, today time.Time, problems *ProblemList) {
 	d := &c.Design
 	file := c.File
+	e.checkPlausible(file, today, problems)
 	for _, row := range e.Coupons {
 		r, err := electrochem.CouponRateOf(row.Coupon)
 		if err != nil {
@@ -133,6 +134,10 @@ func (e *Electro) computeCoating(c *Component, today time.Time, problems *Proble
 		maxUM := 0.0
 		if co.DFTMaxUM != nil {
 			maxUM = *co.DFTMaxUM
+			if maxUM <= *co.DFTNominalUM {
+				problems.Errorf(c.File, d.Lines["dft maximum"], "dft maximum %g µm is not above the dft nominal %g µm: write the largest thickness the coating system allows", maxUM, *co.DFTNominalUM)
+				break
+			}
 		}
 		j, err := electrochem.JudgeDFT(co.DFTReadingsUM, *co.DFTNominalUM, maxUM)
 		if err != nil {

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"slices"
 	"strings"
+	"unicode"
+	"unicode/utf8"
 
 	"github.com/lossline/lossline/survey/electrochem"
 	"github.com/lossline/lossline/survey/number"
@@ -30,12 +32,18 @@ func electroOf(d *Design) *Electro {
 func valueIn(key, value string, units ...string) (float64, error) {
 	t := strings.TrimSpace(value)
 	for _, u := range units {
-		if s, ok := strings.CutSuffix(t, u); ok {
+		// "cm2" does not end in the unit "m2": the unit must follow a number.
+		if s, ok := strings.CutSuffix(t, u); ok && !endsInLetter(s) {
 			t = s
 			break
 		}
 	}
 	v, err := number.Parse(t)
+	if f := strings.Fields(t); err != nil && len(f) == 2 {
+		if _, numErr := number.Parse(f[0]); numErr == nil {
+			return 0, fmt.Errorf("%s: the unit %q is not %s: write the value in %s", key, f[1], strings.Join(units, " or "), units[0])
+		}
+	}
 	if err != nil {
 		return 0, fmt.Errorf("%s: %w (units: %s)", key, err, strings.Join(units, " or "))
 	}
@@ -109,16 +117,20 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 	},
 	"rusted area": func(d *Design, value string, _ Unit) error {
 		v, err := valueIn("rusted area", value, "%")
-		if err == nil && (v < 0 || v > 100) {
+		switch {
+		case err != nil:
+		case v < 0 || v > 100:
 			err = fmt.Errorf("rusted area: %g %% is not between 0 and 100", v)
+		case v < 1 && v > 0 && !strings.HasSuffix(strings.TrimSpace(value), "%"):
+			err = fmt.Errorf("rusted area: %q has no %% sign: write `%g %%` for a percentage (or `%g %%` if it is a fraction of the area)", strings.TrimSpace(value), v, v*100)
 		}
 		electroOf(d).Coating.RustedPct = &v
 		return err
 	},
 	"breakdown area": func(d *Design, value string, _ Unit) error {
 		v, err := valueIn("breakdown area", value, "m²", "m2")
-		if err == nil && v < 0 {
-			err = errors.New("breakdown area: an area cannot be negative")
+		if err == nil && v <= 0 {
+			err = errors.New("breakdown area: the area to recoat must be more than 0 m² (leave the key out when none needs recoating)")
 		}
 		electroOf(d).Coating.BreakdownM2 = &v
 		return err
@@ -128,13 +140,22 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 		if err == nil && v <= 0 {
 			err = errors.New("dft nominal: the nominal dry-film thickness must be positive")
 		}
+		if err == nil {
+			err = coatingMicrons("dft nominal", v)
+		}
 		electroOf(d).Coating.DFTNominalUM = &v
 		return err
 	},
 	"dft maximum": func(d *Design, value string, _ Unit) error {
 		v, err := valueIn("dft maximum", value, "µm", "um")
+		if err == nil {
+			err = coatingMicrons("dft maximum", v)
+		}
+		if err != nil {
+			return err // not kept: the judgement would run against 0 µm
+		}
 		electroOf(d).Coating.DFTMaxUM = &v
-		return err
+		return nil
 	},
 	"dft readings": func(d *Design, value string, _ Unit) error {
 		t := strings.TrimSpace(value)
@@ -150,6 +171,9 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 			if v <= 0 {
 				return fmt.Errorf("dft readings: %g µm is not a thickness", v)
 			}
+			if err := coatingMicrons("dft readings", v); err != nil {
+				return err
+			}
 			rs = append(rs, v)
 		}
 		if len(rs) == 0 {
@@ -162,6 +186,9 @@ var electroKeys = map[string]func(d *Design, value string, units Unit) error{
 		v, err := valueIn("zinc thickness", value, "µm", "um")
 		if err == nil && v <= 0 {
 			err = errors.New("zinc thickness: must be positive")
+		}
+		if err == nil {
+			err = coatingMicrons("zinc thickness", v)
 		}
 		electroOf(d).Coating.ZincUM = &v
 		return err
@@ -220,6 +247,9 @@ func (r *checklistReader) electroTable(t *tableBlock, names []string, headerLine
 			return true
 		}
 		dates = append(dates, d)
+	}
+	if len(t.rows) < 2 {
+		r.problems.Warnf(r.file, headerLine, "the %s table has no rows: write a row under the header, or leave the table out", kind)
 	}
 	line := headerLine
 	var cells []string
@@ -285,6 +315,9 @@ func (e *Electro) couponRow(c []string, line int) error {
 	if row.ID == "" {
 		return errors.New("no coupon id")
 	}
+	if l := duplicateID(e.Coupons, row.ID, func(o *CouponRow) (string, int) { return o.ID, o.Line }); l > 0 {
+		return fmt.Errorf("already in the table at line %d: give each coupon its own id", l)
+	}
 	a, err := electrochem.FindAlloy(row.Metal)
 	if err != nil {
 		return err
@@ -318,6 +351,9 @@ func (e *Electro) couponRow(c []string, line int) error {
 
 func (e *Electro) erRow(c []string, dates []VisitDate, line int) error {
 	p := &ERProbe{ID: strings.TrimSpace(c[0]), Line: line}
+	if l := duplicateID(e.ERProbes, p.ID, func(o *ERProbe) (string, int) { return o.ID, o.Line }); l > 0 {
+		return fmt.Errorf("already in the table at line %d: write each probe once, its readings under the date columns", l)
+	}
 	var err error
 	if p.SpanMM, err = cellNumber("span", c[1]); err != nil {
 		return err
@@ -337,6 +373,9 @@ func (e *Electro) erRow(c []string, dates []VisitDate, line int) error {
 
 func (e *Electro) lprRow(c []string, dates []VisitDate, line int) error {
 	p := &LPRProbe{ID: strings.TrimSpace(c[0]), Metal: strings.TrimSpace(c[1]), Line: line}
+	if l := duplicateID(e.LPRProbes, p.ID, func(o *LPRProbe) (string, int) { return o.ID, o.Line }); l > 0 {
+		return fmt.Errorf("already in the table at line %d: write each probe once, its readings under the date columns", l)
+	}
 	if _, err := electrochem.FindAlloy(p.Metal); err != nil {
 		return err
 	}
@@ -351,6 +390,9 @@ func (e *Electro) lprRow(c []string, dates []VisitDate, line int) error {
 		if p.BetaC, err = cellNumber("cathodic Tafel slope", y); err != nil {
 			return err
 		}
+		if err := tafelMillivolts(b, p.BetaA, p.BetaC); err != nil {
+			return err
+		}
 	default:
 		v, err := cellNumber("B", b)
 		if err != nil {
@@ -358,6 +400,9 @@ func (e *Electro) lprRow(c []string, dates []VisitDate, line int) error {
 		}
 		if v <= 0 {
 			return errors.New("the Stern–Geary B must be positive")
+		}
+		if err := tafelMillivolts(b, v); err != nil {
+			return err
 		}
 		p.BmV = v
 	}
@@ -394,6 +439,11 @@ func (e *Electro) testPointRow(c []string, line int) error {
 			return err
 		}
 	}
+	for i, name := range []string{"on", "off", "native"} {
+		if err := checkPotential(name, *ps[i], el); err != nil {
+			return err
+		}
+	}
 	if v.Potentials.On == nil && v.Potentials.Off == nil {
 		return errors.New("give an on or an off potential (mV)")
 	}
@@ -415,6 +465,9 @@ func (e *Electro) testPointRow(c []string, line int) error {
 
 func (e *Electro) anodeRow(c []string, line int) error {
 	row := &AnodeRow{ID: strings.TrimSpace(c[0]), Material: strings.TrimSpace(c[1]), Line: line, UseNote: strings.TrimSpace(c[5])}
+	if l := duplicateID(e.Anodes, row.ID, func(o *AnodeRow) (string, int) { return o.ID, o.Line }); l > 0 {
+		return fmt.Errorf("already in the table at line %d: give each anode its own id", l)
+	}
 	m, err := electrochem.FindAnodeMetal(row.Material)
 	if err != nil {
 		return err
@@ -446,4 +499,10 @@ func (e *Electro) anodeRow(c []string, line int) error {
 	row.Anode = a
 	e.Anodes = append(e.Anodes, row)
 	return nil
+}
+
+// endsInLetter reports whether s ends in a letter.
+func endsInLetter(s string) bool {
+	r, _ := utf8.DecodeLastRuneInString(s)
+	return unicode.IsLetter(r)
 }

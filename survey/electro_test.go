@@ -141,6 +141,9 @@ func TestElectroChecklist(t *testing.T) {
 func TestElectroProblems(t *testing.T) {
 	head := "---\ntitle: x\ndate: 2026-11-18\nunits: mm\n---\n## C\n\n- nominal: 10\n"
 	tail := "\n| CML | 2026-01-01 |\n|---|---|\n| A | 9 |\n"
+	tp := "\n| test point | date | electrode | on mV | off mV | native mV |\n|-|-|-|-|-|-|\n"
+	coupon := "\n| coupon | metal | installed | removed | mass before g | mass after g | area cm2 | deepest pit mm |\n|-|-|-|-|-|-|-|-|\n"
+	anode := "\n| anode | material | installed kg | remaining kg | current A | utilisation |\n|-|-|-|-|-|-|\n"
 	for _, c := range []struct{ name, body, want string }{
 		{"coupon header", "\n| coupon | metal | in | out |\n|---|---|---|---|\n| C | steel | 2026-01-01 | 2026-02-01 |\n", "survey.md:10: a coupon table's header is | coupon | metal | installed"},
 		{"mass gain", "\n| coupon | metal | installed | removed | mass before g | mass after g | area cm2 | deepest pit mm |\n|-|-|-|-|-|-|-|-|\n| C | steel | 2026-01-01 | 2026-02-01 | 10 | 10.5 | 20 | - |\n", "survey.md:12: coupon C: mass after cleaning 10.5 g is more than before 10 g"},
@@ -153,8 +156,45 @@ func TestElectroProblems(t *testing.T) {
 		{"overprotection limit", "- overprotection limit: -500 mV CSE\n", "survey.md:9: overprotection limit: -500 mV CSE is not between"},
 		{"ER falling", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 0.254 | 400 | 100 |\n", "survey.md:12: warning: ER probe ER-1: the readings fall over time"},
 		{"dft half", "- dft nominal: 200 um\n", "survey.md:9: give both dft nominal and dft readings"},
+		// Typing slips that would change a finding, refused or warned at
+		// the line (limits: common practice; the thresholds are this tool's).
+		{"positive CSE potential", tp + "| T | 2026-01-01 | CSE | 930 | 815 | - |\n", "survey.md:12: test point T: on potential 930 mV Cu/CuSO4 is +930 mV against CSE"},
+		{"zinc electrode reads positive", tp + "| T | 2026-01-01 | Zn | 200 | 250 | - |\n", ""},
+		{"zinc electrode beyond CSE zero", tp + "| T | 2026-01-01 | Zn | 1300 | 1250 | - |\n", "survey.md:12: test point T: on potential 1300 mV Zn is +200 mV against CSE"},
+		{"potential in volts", tp + "| T | 2026-01-01 | CSE | -0.93 | -0.815 | - |\n", "survey.md:12: test point T: on potential -0.93 mV Cu/CuSO4 looks like volts: write millivolts (-930)"},
+		{"potential in volts without its sign", tp + "| T | 2026-01-01 | CSE | 0.93 | - | - |\n", "survey.md:12: test point T: on potential 0.93 mV Cu/CuSO4 looks like volts without the minus sign: write millivolts (-930)"},
+		{"on and off swapped", tp + "| T | 2026-01-01 | CSE | -815 | -930 | - |\n", "survey.md:12: warning: test point T: off -930 mV is more negative than on -815 mV"},
+		{"test point after the survey", tp + "| T | 2027-01-01 | CSE | -1000 | -900 | - |\n", "survey.md:12: test point T: date 2027-01-01 is after the survey date 2026-11-18"},
+		{"coupon removed after the survey", coupon + "| C | steel | 2026-01-01 | 2026-12-01 | 10 | 9.5 | 20 | - |\n", "survey.md:12: coupon C: removed 2026-12-01 is after the survey date"},
+		{"coupon mass in kg", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 0.010 | 0.0095 | 20 | - |\n", "survey.md:12: warning: coupon C: mass 0.01 g is under 1 g: looks like kilograms, write grams (10)"},
+		{"coupon area in m2", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.5 | 0.002 | - |\n", "survey.md:12: warning: coupon C: area 0.002 cm² is under 1 cm²: looks like m², write cm² (20)"},
+		{"coupon area in mm2", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.5 | 2000 | - |\n", "survey.md:12: warning: coupon C: area 2000 cm² is over 1000 cm²: looks like mm², write cm² (20)"},
+		{"coupon pit in µm", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.5 | 20 | 120 |\n", "survey.md:12: warning: coupon C: deepest pit 120 mm is over 5 mm, deeper than a coupon is thick: looks like µm, write mm (0.12)"},
+		{"coupon id twice", coupon + "| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.5 | 20 | - |\n| C | steel | 2026-01-01 | 2026-02-01 | 10 | 9.6 | 20 | - |\n", "survey.md:13: coupon C: already in the table at line 12"},
+		{"ER span in mils", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 10 | 100 | 200 |\n", "survey.md:12: warning: ER probe ER-1: span 10 mm is over 2.5 mm: looks like mils, write mm (0.254)"},
+		{"ER probe twice", "\n| ER probe | span mm | 2025-01-01 | 2026-01-01 |\n|-|-|-|-|\n| ER-1 | 0.254 | 100 | 200 |\n| ER-1 | 0.254 | 100 | 200 |\n", "survey.md:13: er probe ER-1: already in the table at line 12"},
+		{"LPR in kilohm", "\n| LPR probe | metal | B mV | 2026-01-01 |\n|-|-|-|-|\n| L | carbon steel | 26 | 2.6 |\n", "survey.md:12: warning: LPR probe L: a polarisation resistance under 10 Ω·cm² looks like kΩ·cm²"},
+		{"Tafel slopes in volts", "\n| LPR probe | metal | B mV | 2026-01-01 |\n|-|-|-|-|\n| L | carbon steel | 0.12/0.12 | 2600 |\n", `survey.md:12: lpr probe L: the B column "0.12/0.12": 0.12 mV is under 1 mV: looks like volts`},
+		{"B in volts", "\n| LPR probe | metal | B mV | 2026-01-01 |\n|-|-|-|-|\n| L | carbon steel | 0.026 | 2600 |\n", `survey.md:12: lpr probe L: the B column "0.026": 0.026 mV is under 1 mV: looks like volts`},
+		{"anode current in mA", anode + "| A1 | zinc | - | 5 | 55 | 0.8 |\n", "survey.md:12: warning: anode A1: current 55 A is over 10 A for one anode: looks like mA, write amperes (0.055)"},
+		{"anode mass in g", anode + "| A1 | zinc | 14500 | 3400 | 0.05 | 0.8 |\n", "survey.md:12: warning: anode A1: mass 14500 kg is over 1000 kg for one anode: looks like grams, write kg (14.5)"},
+		{"anode id twice", anode + "| A1 | zinc | - | 5 | 0.1 | 0.8 |\n| A1 | zinc | - | 4 | 0.1 | 0.8 |\n", "survey.md:13: anode A1: already in the table at line 12"},
+		{"empty table", anode, "survey.md:10: warning: the anode table has no rows"},
+		{"dft readings in mm", "- dft nominal: 250 um\n- dft readings: 0.265 0.240 0.232\n", "survey.md:10: dft readings: 0.265 µm is under 1 µm: looks like mm, write micrometres (265 µm)"},
+		{"zinc in mm", "- corrosivity: C4\n- zinc thickness: 0.085\n", "survey.md:10: zinc thickness: 0.085 µm is under 1 µm: looks like mm, write micrometres (85 µm)"},
+		{"dft maximum below nominal", "- dft nominal: 250 um\n- dft maximum: 25 um\n- dft readings: 250 260 270\n", "survey.md:10: dft maximum 25 µm is not above the dft nominal 250 µm"},
+		{"rusted area as a fraction", "- rusted area: 0.02\n", "survey.md:9: rusted area: \"0.02\" has no % sign: write `0.02 %` for a percentage (or `2 %` if it is a fraction of the area)"},
+		{"dft in mm with its unit", "- dft nominal: 0.25 mm\n", `survey.md:9: dft nominal: the unit "mm" is not µm or um: write the value in µm`},
+		{"breakdown area in cm2", "- breakdown area: 140000 cm2\n", `survey.md:9: breakdown area: the unit "cm2" is not m² or m2: write the value in m²`},
+		{"no breakdown area", "- breakdown area: 0 m2\n", "survey.md:9: breakdown area: the area to recoat must be more than 0 m²"},
 	} {
 		_, problems := readElectro(t, head+c.body+tail)
+		if c.want == "" {
+			if problems.HasErrors() {
+				t.Errorf("%s: want no error, got %v", c.name, problems)
+			}
+			continue
+		}
 		wantProblem(t, c.name, problems, c.want)
 	}
 }

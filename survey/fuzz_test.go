@@ -29,6 +29,10 @@ func FuzzParseChecklist(f *testing.F) {
 				t.Fatalf("problem at line %d of a %d-line file: %v", p.Line, lines, p)
 			}
 		}
+		// The new inputs' computations run on whatever was read.
+		_ = ComputeRequired(s)
+		_ = ComputeElectro(s)
+		_ = ComputeLocal(s)
 		_ = Assess(s, wallloss.DefaultPolicy)
 	})
 }

@@ -151,12 +151,21 @@ func TestLocalDamageProblems(t *testing.T) {
 		{"unknown method", "## C\n\n- nominal: 8\n- pits: Weibull\n" + table, `survey.md:11: pits: "Weibull" is not one of: gumbel`, false},
 		{"missing input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n" + table, "survey.md:11: pits: give total area", false},
 		{"bad area unit", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 acre\n  - total area: 9 m2\n" + table, `survey.md:13: pits: sample area: "1 acre": unknown area unit`, false},
+		{"pit depths in inches", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 0.064 0.081 0.056 0.094\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "survey.md:12: warning: pits: depths: every pit is under 0.25 mm deep (deepest 0.094 mm): inches in a mm survey?", true},
+		{"pit depths in mm", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1.62 2.05 1.41 2.38\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "", true},
 		{"too few pits", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2\n  - sample area: 1 m2\n  - total area: 9 m2\n" + table, "survey.md:11: pits: 2 pit-depth samples", false},
 		{"unknown input", "## C\n\n- nominal: 8\n- pits: Gumbel\n  - depths: 1 2 3\n  - sample area: 1 m2\n  - total area: 9 m2\n  - colour: red\n" + table, `survey.md:15: pits: "colour" is not an input`, false},
 		{"pressure without unit", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 2\n  - length: 50\n  - SMYS: 241\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:15: corroded area: SMYS: "241": give the unit`, false},
 		{"too deep is repair, not an error", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 7\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "", false},
+		// "65 %" once read as 0.65 mm: a depth as a share of the wall is not a length.
+		{"depth as a percentage", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 65 %\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, `survey.md:13: corroded area: depth: "65 %" is a percentage, not a length`, false},
 		{"depth beyond wall", "## C\n\n- nominal: 8\n- corroded area: ASME B31G\n  - outside diameter: 200\n  - depth: 9\n  - length: 50\n  - SMYS: 241 MPa\n  - MAOP: 2 MPa\n  - safety factor: 1.39\n" + table, "survey.md:11: corroded area: the depth must be at least 0 and less than the wall", false},
 		{"limit without engineer", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of Sx\n" + table, "survey.md:13: member: allowed loss: name the engineer", false},
+		// A measured plate ten times its nominal (a slipped decimal point) would
+		// count as a gain and hide the loss (mill over-tolerance is about a
+		// tenth: EN 10029, from memory).
+		{"measured plate over nominal", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - measured plate: 80\n" + table, "survey.md:13: member: measured plate: 80 mm is over 20 % more than its nominal 8 mm", false},
+		{"measured plate at mill tolerance", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - measured plate: 8.6\n" + table, "", false},
 		{"limit of an unknown quantity", "## C\n\n- nominal: 8\n- member: plate\n  - plate: 200 x 8\n  - allowed loss: 10 % of J\n  - set by: A. B.\n" + table, `survey.md:13: member: allowed loss: "J" is not one of area, Ix, Iy, Sx, Sy`, false},
 		{"grid of a missing CML", "## C\n\n- nominal: 8\n" + table + "\n| grid B 2026-11-18 | 1 |\n|---|---|\n| a | 7 |\n", "survey.md:16: grid B: no CML B", false},
 		{"grid minimum not in the row", "## C\n\n- nominal: 8\n" + table + "\n| grid A 2026-11-18 | 1 |\n|---|---|\n| a | 6.5 |\n", "survey.md:16: grid A: its minimum 6.5 mm (row a, column 1) is below the row's governing reading 7 mm", false},

@@ -134,6 +134,9 @@ func (lr *localReader) pits() *LocalAssessment {
 			lr.inputs = append(lr.inputs, required.Input{Name: "wall", Written: "(nominal)", Used: fmt.Sprintf("%.4g mm", wall)})
 		}
 	}
+	if in, ok := lr.find("depths"); ok {
+		lr.pitsInInches(in, depths, wall)
+	}
 	if lr.failed {
 		return nil
 	}
@@ -315,4 +318,23 @@ func (lr *localReader) corrodedArea() *LocalAssessment {
 		la.Result += fmt.Sprintf("; passes for %.1f y at %.3g mm/y", *s.RemainingY, c.DepthRateMMPerY)
 	}
 	return la
+}
+
+// pitShallowMM is the deepest pit depth (mm) under which a whole set of pit
+// samples in a mm survey is taken for inches: pit gauges read to about
+// 0.1 mm and a pit survey is not made of pits a few gauge steps deep (common
+// practice; the limit is this tool's).
+const pitShallowMM = 0.25
+
+// pitsInInches warns when every pit depth of a mm survey is under
+// pitShallowMM and the depths read as inches would still fit in the wall.
+func (lr *localReader) pitsInInches(in MethodInput, depths []float64, wallMM float64) {
+	if lr.units != MM || len(depths) == 0 || wallMM <= 0 {
+		return
+	}
+	deepest := slices.Max(depths)
+	if deepest >= pitShallowMM || deepest*MMPerInch >= wallMM {
+		return
+	}
+	lr.problems.Warnf(lr.comp.File, in.Line, "%s: depths: every pit is under %g mm deep (deepest %g mm): inches in a mm survey? Write the depths in mm (the deepest would be %.4g mm)", lr.w.Key, pitShallowMM, deepest, deepest*MMPerInch)
 }

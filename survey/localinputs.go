@@ -80,6 +80,10 @@ func (lr *localReader) lengthOf(s string) (float64, error) {
 	}
 	switch q.Kind {
 	case required.Number:
+		if strings.Contains(s, "%") {
+			// "%" parses as a plain number (65 % is 0.65): never a length.
+			return 0, fmt.Errorf("%q is a percentage, not a length: write it in mm or in (e.g. 5.3 mm)", s)
+		}
 		q.Value = lr.units.ToMM(q.Value)
 	case required.Length:
 	default:

@@ -109,6 +109,9 @@ func (lr *localReader) member() *LocalAssessment {
 		lr.errorf(lr.w.Line, "%v", err)
 		return nil
 	}
+	if !lr.measuredNearNominal(written, names, nomPlates, measured) {
+		return nil
+	}
 	nom, err := localdamage.SectionOf(nomPlates)
 	if err != nil {
 		lr.errorf(lr.w.Line, "%v", err)
@@ -169,4 +172,28 @@ func parseLossLimit(s string) (quantity string, pct float64, err error) {
 		return "", 0, fmt.Errorf("%q is not a percentage between 0 and 100, e.g. 15 %%", strings.TrimSpace(num))
 	}
 	return localdamage.Quantities[i], 100 * v.Value, nil
+}
+
+// memberOverNominal is how far above its nominal a measured plate may read
+// before it is taken for a slip: mill over-tolerances of plates and rolled
+// sections are around a tenth of the thickness (EN 10029 and EN 10034, from
+// memory); over a fifth, the reading is a typing slip, and its loss would
+// count as a gain.
+const memberOverNominal = 1.2
+
+// measuredNearNominal refuses a measured plate thicker than its nominal by
+// more than memberOverNominal; it reports whether all are within.
+func (lr *localReader) measuredNearNominal(written []string, names map[string]string, nom []localdamage.Plate, measured map[string]float64) bool {
+	ok := true
+	for _, n := range written {
+		v, has := measured[names[n]]
+		i := slices.IndexFunc(nom, func(p localdamage.Plate) bool { return p.Name == names[n] })
+		if !has || i < 0 || v <= nom[i].ThicknessMM*memberOverNominal {
+			continue
+		}
+		in, _ := lr.find("measured " + n)
+		lr.errorf(in.Line, "measured %s: %.4g mm is over %.0f %% more than its nominal %.4g mm: check the value and its unit (a measured plate is at most a little over nominal)", n, v, (memberOverNominal-1)*100, nom[i].ThicknessMM)
+		ok = false
+	}
+	return ok
 }

@@ -49,6 +49,9 @@ func TestFieldMistakesAreErrors(t *testing.T) {
 		{"key without its space", "- repaircost: 6000\n", "survey.md:8: unknown design key `repaircost`: did you mean `repair cost`?"},
 		{"key another name", "- nominal thickness: 12.7\n", "survey.md:8: unknown design key `nominal thickness`: did you mean `nominal`?"},
 		{"short key one edit", "- metl: zinc\n", "survey.md:8: unknown design key `metl`: did you mean `metal`?"},
+		{"replaced for repaired", "- replaced: 2024-01-01; new 12.7\n", "survey.md:8: unknown design key `replaced`: did you mean `repaired`?"},
+		{"galvanizing for zinc", "- galvanizing thickness: 85 um\n", "survey.md:8: unknown design key `galvanizing thickness`: did you mean `zinc thickness`?"},
+		{"corroded aera", "- corroded aera: ASME B31G\n", "survey.md:8: unknown design key `corroded aera`: did you mean `corroded area`?"},
 		{"installed one-digit month", "- installed: 2005-6\n", `survey.md:8: installed: "2005-6" is not a date: one-digit month, write 2005-06`},
 		// Numbers.
 		{"decimal comma in nominal", "- nominal: 12,7\n", `survey.md:8: nominal: "12,7" is not a number: write 12.7, not 12,7`},

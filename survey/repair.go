@@ -74,14 +74,22 @@ func readInstrumentKey(d *Design, value string, _ Unit) error {
 	return nil
 }
 
-// checkRepairs checks that each repair names CMLs of its component and is
-// dated no later than the survey.
+// checkRepairs checks that each repair names CMLs of its component, is dated
+// no later than the survey and not before the component was installed, and
+// that its new thickness is near the nominal (the plausibility rule's ratio).
 func (r *checklistReader) checkRepairs() {
 	for _, a := range r.survey.Assets {
 		for _, c := range a.Components {
 			for _, e := range c.Design.Repairs {
 				if !r.survey.Date.IsZero() && e.Date.Time.After(r.survey.Date) {
 					r.problems.Errorf(r.file, e.Line, "repaired: %s is after the survey date %s", e.Date, r.survey.Date.Format(time.DateOnly))
+				}
+				if in := c.Design.Installed; in != nil && e.Date.Time.Before(in.Time) {
+					r.problems.Errorf(r.file, e.Line, "repaired: %s is before the component was installed (%s): check the year", e.Date, in)
+				}
+				if n := c.Design.NominalMM; n != nil && e.NewMM != nil && *n > 0 &&
+					(*e.NewMM > *n*slipFarRatio || *e.NewMM < *n/slipFarRatio) {
+					r.problems.Errorf(r.file, e.Line, "repaired: new %g mm is not within a third to %g times the nominal %g mm: a unit or decimal slip? Write the thickness after the repair in the checklist's unit", *e.NewMM, slipFarRatio, *n)
 				}
 				for _, id := range e.CMLs {
 					if !slices.ContainsFunc(c.CMLs, func(m *CML) bool { return m.ID == id }) {
@@ -175,4 +183,32 @@ func intervalRates(c *Component, m *CML) []IntervalRate {
 		out = append(out, IntervalRate{Start: a.Date, End: b.Date, RateMMPerY: (a.ThicknessMM - b.ThicknessMM) / wallloss.YearsBetween(a.Date, b.Date)})
 	}
 	return out
+}
+
+// repairBeforeReadings warns at a repair dated before every reading of the
+// CMLs it covers, once the earlier surveys are merged: its new thickness then
+// becomes the first point of their rates, which a slip in the year makes
+// wrong without a sign.
+func repairBeforeReadings(s *Survey) ProblemList {
+	var problems ProblemList
+	for _, a := range s.Assets {
+		for _, c := range a.Components {
+			for _, e := range c.Design.Repairs {
+				var first *VisitDate
+				var at string
+				for _, m := range c.CMLs {
+					if !e.Covers(m) || len(m.Visits) == 0 {
+						continue
+					}
+					if d := m.Visits[0].Date; first == nil || d.Time.Before(first.Time) {
+						first, at = &d, m.ID
+					}
+				}
+				if first != nil && e.Date.Time.Before(first.Time) {
+					problems.Warnf(c.File, e.Line, "repaired: %s is before the first reading of %s (%s): the repair's thickness becomes the start of the CML's rates; check the year", e.Date, at, first)
+				}
+			}
+		}
+	}
+	return problems
 }

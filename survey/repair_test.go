@@ -85,6 +85,13 @@ func TestRepairProblems(t *testing.T) {
 		{"bad thickness", "- repaired: 2021-01-01; new 12,0", "survey.md:13: repaired: new:"},
 		{"after the survey", "- repaired: 2025-06-01; new 12.0", "survey.md:13: repaired: 2025-06-01 is after the survey date 2025-01-01"},
 		{"unknown CML", "- repaired: 2021-01-01; new 12.0; at C9", `survey.md:13: repaired: CML C9 is not a CML of "Shell"`},
+		// Slips that would silently restart a CML's rates (common practice:
+		// a repair dated before the item existed, or a thickness a third or
+		// three times the nominal, is a typing slip; the ratio is the
+		// plausibility warnings' one).
+		{"before installed", "- installed: 2010-01\n- repaired: 2005-01-01; new 12.0; at C1", "survey.md:14: repaired: 2005-01-01 is before the component was installed (2010-01)"},
+		{"new in inches", "- repaired: 2021-01-01; new 0.47; at C1", "survey.md:13: repaired: new 0.47 mm is not within a third to 3 times the nominal 12 mm"},
+		{"new ten times", "- repaired: 2021-01-01; new 120; at C1", "survey.md:13: repaired: new 120 mm is not within a third to 3 times the nominal 12 mm"},
 	} {
 		src := strings.Replace(repairSurvey, "- repaired: 2021-01-01; new 12.0; at C1; plate replaced", c.new, 1)
 		_, problems := ParseChecklist("survey.md", []byte(src))
@@ -94,6 +101,28 @@ func TestRepairProblems(t *testing.T) {
 		}
 		if !found {
 			t.Errorf("%s: want %q, got %v", c.name, c.want, problems)
+		}
+	}
+}
+
+// A repair dated before every reading of its CMLs makes its thickness the
+// start of their rates: warned, so a slip in the year shows.
+func TestRepairBeforeTheReadings(t *testing.T) {
+	for _, c := range []struct{ name, new, want string }{
+		{"before the first reading", "- repaired: 2010-01-01; new 12.0; at C1", "survey.md:13: warning: repaired: 2010-01-01 is before the first reading of C1 (2015-01-01)"},
+		{"between readings", "- repaired: 2021-01-01; new 12.0; at C1", ""},
+	} {
+		src := strings.Replace(repairSurvey, "- repaired: 2021-01-01; new 12.0; at C1; plate replaced", c.new, 1)
+		s, problems := ParseChecklist("survey.md", []byte(src))
+		if problems.HasErrors() {
+			t.Fatalf("%s: %v", c.name, problems)
+		}
+		got := repairBeforeReadings(s)
+		switch {
+		case c.want == "" && len(got) > 0:
+			t.Errorf("%s: want no warning, got %v", c.name, got)
+		case c.want != "":
+			wantProblem(t, c.name, got, c.want)
 		}
 	}
 }
