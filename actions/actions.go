@@ -129,7 +129,7 @@ func Register(in Input) []Action {
 		if r.Class == wallloss.AtOrBelowRequired {
 			below[it.Component] = true
 			out = append(out, Action{
-				ID: "REQ-" + it.CML.ID, Kind: BelowRequired, Priority: Immediate, Due: s.Date,
+				ID: survey.IDBelowRequired + it.CML.ID, Kind: BelowRequired, Priority: Immediate, Due: s.Date,
 				Asset: it.Asset.Name, Component: it.Component.Name, CML: it.CML.ID,
 				Reason: fmt.Sprintf("reads %.2f mm on %s, at or below the required %.2f mm: repair, re-rate or take out of service",
 					*r.ThicknessMM, r.CurrentDate.Format(time.DateOnly), *r.RequiredMM()),
@@ -156,7 +156,7 @@ func Register(in Input) []Action {
 				p = High
 			}
 			out = append(out, Action{
-				ID: "INSP-" + hash(loc.Asset.Name, c.Name), Kind: NextInspection, Priority: p, Due: due,
+				ID: survey.IDNextInspection + hash(loc.Asset.Name, c.Name), Kind: NextInspection, Priority: p, Due: due,
 				Asset: loc.Asset.Name, Component: c.Name, CML: it.CML.ID,
 				Reason: fmt.Sprintf("next thickness inspection of the component; CML %s sets the date (%s)", it.CML.ID, it.Result.NextBasis),
 				Rule:   "earliest next inspection of the component's CMLs", File: c.File, Line: c.Line,
@@ -170,7 +170,7 @@ func Register(in Input) []Action {
 					continue
 				}
 				out = append(out, Action{
-					ID: "LOCAL-" + hash(loc.Asset.Name, c.Name, a.Key), Kind: LocalLimit, Priority: Immediate, Due: s.Date,
+					ID: survey.IDLocalLimit + hash(loc.Asset.Name, c.Name, a.Key), Kind: LocalLimit, Priority: Immediate, Due: s.Date,
 					Asset: loc.Asset.Name, Component: c.Name,
 					Reason: fmt.Sprintf("%s: %s; repair, re-rate or take out of service", a.Method, plainText(a.Result)),
 					Rule:   "local damage at its limit is acted on at once", File: c.File, Line: a.Line,
@@ -182,7 +182,7 @@ func Register(in Input) []Action {
 				continue
 			}
 			out = append(out, Action{
-				ID: "SCOPE-" + hash(loc.Asset.Name, c.Name, sc.Text), Kind: ScopeNotDone, Priority: Medium, Due: due,
+				ID: survey.IDScopeNotDone + hash(loc.Asset.Name, c.Name, sc.Text), Kind: ScopeNotDone, Priority: Medium, Due: due,
 				Asset: loc.Asset.Name, Component: c.Name,
 				Reason: "not done in this visit: " + plainText(sc.Text) + "; revisit by the next inspection",
 				Rule:   "a scope item not ticked is revisited", File: c.File, Line: sc.Line,
@@ -202,7 +202,7 @@ func Register(in Input) []Action {
 			due = *n
 		}
 		out = append(out, Action{
-			ID: "RATE-" + it.CML.ID, Kind: ConfirmRate, Priority: High, Due: due,
+			ID: survey.IDConfirmRate + it.CML.ID, Kind: ConfirmRate, Priority: High, Due: due,
 			Asset: it.Asset.Name, Component: it.Component.Name, CML: it.CML.ID,
 			Reason: "latest interval's loss rate is well above the long-term rate: confirm by re-measurement before acting on it",
 			Rule:   "an accelerating CML is re-measured", File: it.CML.File, Line: it.CML.Line,
@@ -218,7 +218,7 @@ func Register(in Input) []Action {
 			reason += ": " + rp.Why
 		}
 		out = append(out, Action{
-			ID: "REP-" + hash(rp.Asset, rp.Component.Name), Kind: PlannedRepair, Priority: p, Due: rp.Due,
+			ID: survey.IDPlannedRepair + hash(rp.Asset, rp.Component.Name), Kind: PlannedRepair, Priority: p, Due: rp.Due,
 			Asset: rp.Asset, Component: rp.Component.Name, Reason: reason,
 			Rule: "repairs funded by the repair plan", File: rp.Component.File, Line: rp.Component.Line,
 		})
@@ -229,7 +229,7 @@ func Register(in Input) []Action {
 			prio, todo = Medium, "take instant-off readings to judge it"
 		}
 		out = append(out, Action{
-			ID: "CP-" + hash(p.Asset, p.Component, p.Point), Kind: ProtectionNotMet, Priority: prio,
+			ID: survey.IDProtectionNotMet + hash(p.Asset, p.Component, p.Point), Kind: ProtectionNotMet, Priority: prio,
 			Due: s.Date.AddDate(0, CorrectWithin, 0), Asset: p.Asset, Component: p.Component,
 			Reason: fmt.Sprintf("test point %s, %s: %s; %s", p.Point, p.Status, strings.Join(p.Reasons, "; "), todo),
 			Rule:   "a test point failing its protection criterion is corrected", File: p.File, Line: p.Line,

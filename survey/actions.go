@@ -253,9 +253,21 @@ func openIDs(open []CarriedAction) string {
 	return " (open: " + strings.Join(ids, ", ") + ")"
 }
 
-// computedIDPrefixes open the ids of the actions package's computed actions
-// (actions/actions.go); a written id starting so could name one of them.
-var computedIDPrefixes = []string{"REQ-", "INSP-", "LOCAL-", "SCOPE-", "RATE-", "REP-", "CP-"}
+// Prefixes of the ids of the computed actions, which the actions package
+// builds; a written id may not start with one.
+const (
+	IDBelowRequired    = "REQ-"
+	IDNextInspection   = "INSP-"
+	IDLocalLimit       = "LOCAL-"
+	IDScopeNotDone     = "SCOPE-"
+	IDConfirmRate      = "RATE-"
+	IDPlannedRepair    = "REP-"
+	IDProtectionNotMet = "CP-"
+)
+
+// computedIDPrefixes open the ids of the computed actions; a written id
+// starting so could name one of them.
+var computedIDPrefixes = []string{IDBelowRequired, IDNextInspection, IDLocalLimit, IDScopeNotDone, IDConfirmRate, IDPlannedRepair, IDProtectionNotMet}
 
 // computedIDPrefix is the computed actions' prefix id starts with, or "".
 func computedIDPrefix(id string) string {
