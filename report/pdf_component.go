@@ -237,7 +237,7 @@ func (d *doc) results(c *survey.Component) {
 	d.heading(2, "Results")
 	u, ru := string(d.u.u), d.u.rateUnit
 	cols := []column{
-		{"CML", 14, "L"}, {"Thick- ness (" + u + ")", 16, "R"}, {"Long- term rate (" + ru + ")", 17, "R"},
+		{"CML", 14, "L"}, {"Thick\u00ad ness (" + u + ")", 16, "R"}, {"Long- term rate (" + ru + ")", 17, "R"},
 		{"Short- term rate (" + ru + ")", 17, "R"}, {"Governing rate (" + ru + ")", 18, "R"}, {"Remaining life (y)", 18, "R"},
 		{"Retirement date", 21, "L"}, {"Next inspection", 23, "L"}, {"Repair window and flags", 36, "L"},
 	}

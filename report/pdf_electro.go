@@ -200,7 +200,7 @@ func (d *doc) testPoints(e *survey.Electro) {
 	}
 	w := d.width()
 	d.table([]column{{"Point", 14, "L"}, {"Date", 19, "L"}, {"Electrode", 20, "L"}, {"On (mV)", 13, "R"}, {"Off (mV)", 13, "R"},
-		{"Native (mV)", 15, "R"}, {"Off (mV CSE)", 15, "R"}, {"Polar- isation (mV)", 15, "R"}, {"Result", w - 124, "L"}}, rows,
+		{"Native (mV)", 15, "R"}, {"Off (mV CSE)", 15, "R"}, {"Polar\u00ad isation (mV)", 15, "R"}, {"Result", w - 124, "L"}}, rows,
 		func(i int) rowStyle { return rowStyle{bold: bold[i]} }, smallSize)
 	limit := electrochem.PolarisedLimitMV
 	if e.Anaerobic {

@@ -227,7 +227,7 @@ func (d *doc) ranked() {
 		{"Rank", 11, "R"}, {"Asset / component", 50, "L"}, {"CML", 15, "L"},
 		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit + ")", 16, "R"},
 		{"Remaining life (y)", 19, "R"}, {"Retirement date", 21, "L"}, {"Next inspection", 21, "L"},
-		{"Conse- quence", 17, "L"}, {"Repair window", 27, "L"}, {"Flags", 34, "L"},
+		{"Conse\u00ad quence", 17, "L"}, {"Repair window", 27, "L"}, {"Flags", 34, "L"},
 	}
 	rows := make([][]string, len(d.items))
 	for i, it := range d.items {

@@ -1,0 +1,30 @@
+package report
+
+import (
+	"regexp"
+	"strings"
+	"testing"
+)
+
+// Table cells of the demo wrap only between words: read back by pdftotext, no
+// priority, rate-basis tag, date or column title is cut inside a word, and a
+// title split for a narrow column is joined again where it fits.
+func TestDemoTablesKeepWordsWhole(t *testing.T) {
+	all := strings.Join(demoPages(t), "\n")
+	for _, cut := range []*regexp.Regexp{
+		regexp.MustCompile(`immediat\s*\n`),            // actions: priority
+		regexp.MustCompile(`nominal-ba\s`),          // results: governing rate basis
+		regexp.MustCompile(`\(\d{4}-\d\d\s*\n`),        // results: date of an earlier reading
+		regexp.MustCompile(`(?m)\bThick- ness\b`),      // results: title with room to join
+		regexp.MustCompile(`(?m)^\s*e\s+[A-Z]+-[0-9]`), // a lone "e" ahead of an id
+	} {
+		if m := cut.FindString(all); m != "" {
+			t.Errorf("a word is cut in a table cell: %q", m)
+		}
+	}
+	for _, whole := range []string{"immediate LOCAL-", "nominal-based", "(2021-06-15)"} {
+		if !strings.Contains(all, whole) {
+			t.Errorf("the demo's tables lack %q whole", whole)
+		}
+	}
+}
