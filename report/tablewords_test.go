@@ -13,10 +13,11 @@ func TestDemoTablesKeepWordsWhole(t *testing.T) {
 	all := strings.Join(demoPages(t), "\n")
 	for _, cut := range []*regexp.Regexp{
 		regexp.MustCompile(`immediat\s*\n`),            // actions: priority
-		regexp.MustCompile(`nominal-ba\s`),          // results: governing rate basis
+		regexp.MustCompile(`nominal-ba\s`),             // results: governing rate basis
 		regexp.MustCompile(`\(\d{4}-\d\d\s*\n`),        // results: date of an earlier reading
 		regexp.MustCompile(`(?m)\bThick- ness\b`),      // results: title with room to join
 		regexp.MustCompile(`(?m)^\s*e\s+[A-Z]+-[0-9]`), // a lone "e" ahead of an id
+		regexp.MustCompile(`\\[_*]`),                   // a Markdown escape shown (t\_min)
 	} {
 		if m := cut.FindString(all); m != "" {
 			t.Errorf("a word is cut in a table cell: %q", m)
@@ -25,6 +26,22 @@ func TestDemoTablesKeepWordsWhole(t *testing.T) {
 	for _, whole := range []string{"immediate LOCAL-", "nominal-based", "(2021-06-15)"} {
 		if !strings.Contains(all, whole) {
 			t.Errorf("the demo's tables lack %q whole", whole)
+		}
+	}
+}
+
+// Every character the demo prints, read back by pdftotext, has a glyph in the
+// embedded Go font, and none was replaced by the Undrawable box (a combining
+// macron over t was).
+func TestDemoPrintsOnlyDrawableCharacters(t *testing.T) {
+	for i, p := range demoPages(t) {
+		for _, r := range p {
+			if r == '\n' || r == '\t' || r == '\f' || r == '\u00a0' {
+				continue
+			}
+			if !drawable(r) || string(r) == Undrawable {
+				t.Errorf("page %d prints %q (U+%04X), which the font cannot draw", i+1, r, r)
+			}
 		}
 	}
 }
