@@ -6,6 +6,7 @@ import (
 	"strings"
 	"time"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/electrochem"
 	"github.com/lossline/lossline/survey/wallloss"
@@ -395,7 +396,7 @@ func (d *doc) electroMethods() {
 	d.markdown(b.String())
 }
 
-// electroFindings lists, after the summary, the test points failing their
+// electroFindings lists, after the actions, the test points failing their
 // criteria, rejected dry-film batches and warned metal pairs, each with its
 // checklist line; nothing when there are none.
 func (d *doc) electroFindings() {
@@ -403,18 +404,33 @@ func (d *doc) electroFindings() {
 	if len(fs) == 0 {
 		return
 	}
-	d.heading(1, "Cathodic protection, coatings and metal pairs: findings")
+	d.chapter(60) // a chapter of its own: it is in the contents
+	d.heading(0, "Cathodic protection, coatings and metal pairs: findings")
 	rows := make([][]string, len(fs))
 	for i, e := range fs {
 		who := e.Component
 		if e.Subject != "" {
 			who += " / " + e.Subject
 		}
-		rows[i] = []string{e.Asset, who, e.Kind + ": " + strings.ToUpper(e.Status), strings.Join(e.Reasons, "; ")}
+		rows[i] = []string{e.Asset, who, electroFindingWords(e), strings.Join(e.Reasons, "; ")}
 	}
 	w := d.width()
 	d.table([]column{{"Asset", 32, "L"}, {"Component / point", 36, "L"}, {"Finding", 26, "L"}, {"Why", w - 94, "L"}}, rows, // checklist lines: results.json and the data checks
 		func(int) rowStyle { return rowStyle{bold: true} }, smallSize)
+}
+
+// electroFindingWords is a finding's kind and status in words, the status in
+// capitals ("cathodic protection: NOT PROTECTED").
+func electroFindingWords(e findings.ElectroFinding) string {
+	kind := map[string]string{"cp": "cathodic protection", "dft": "dry-film thickness"}[e.Kind]
+	if kind == "" {
+		kind = e.Kind
+	}
+	status := e.Status
+	if status == "warn" {
+		status = "warning"
+	}
+	return kind + ": " + strings.ToUpper(status)
 }
 
 // rateSourcePair is the component header's rate-source row, when the

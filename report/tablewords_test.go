@@ -17,6 +17,7 @@ func TestDemoTablesKeepWordsWhole(t *testing.T) {
 		regexp.MustCompile(`\(\d{4}-\d\d\s*\n`),        // results: date of an earlier reading
 		regexp.MustCompile(`(?m)\bThick- ness\b`),      // results: title with room to join
 		regexp.MustCompile(`(?m)^\s*e\s+[A-Z]+-[0-9]`), // a lone "e" ahead of an id
+		regexp.MustCompile(`\b(cp|dft): [A-Z]`),        // a finding's kind as a code, not in words
 		regexp.MustCompile(`\\[_*]`),                   // a Markdown escape shown (t\_min)
 	} {
 		if m := cut.FindString(all); m != "" {
