@@ -76,8 +76,8 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	pairs = append(pairs, d.rateSourcePair(c)...)
 	if g := d.f.Governing(c); g != nil {
 		r := g.Result
-		gov := fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",
-			g.CML.ID, repairWindow(r), years(r.RemainingLifeY), day(r.NextInspection))
+		gov := fmt.Sprintf("CML %s: %s%s; remaining life %s y; next inspection %s",
+			g.CML.ID, repairWindow(r), localStatus(g), years(r.RemainingLifeY), day(r.NextInspection))
 		var unknown []string
 		for _, m := range c.CMLs {
 			if it := d.assessed(m); it != nil && it.Result.Class == wallloss.LifeUnknown {

@@ -46,3 +46,23 @@ func TestDemoPrintsOnlyDrawableCharacters(t *testing.T) {
 		}
 	}
 }
+
+// A CML whose component's local damage is at its limit (the demo's pipe
+// bridge girder: Sx loss 15.7 % against the 10 % its engineer allows) never
+// reads as fine: the summary in words puts it under "now", and the
+// component's "Governed by" row says the limit is reached beside the wall's
+// repair window.
+func TestDemoLocalLimitReadsAsNow(t *testing.T) {
+	pages := demoPages(t)
+	p2 := flat(pages[1])
+	if !strings.Contains(p2, "now (local damage at its limit): PB1-01, PB1-02") {
+		t.Errorf("the summary in words does not put PB1-01 and PB1-02 under now:\n%s", p2)
+	}
+	if regexp.MustCompile(`(5 to 10|10 years or more)[^.;]*: [^.;]*PB1-0[12]`).MatchString(p2) {
+		t.Errorf("the summary in words lists a girder CML in a later repair window:\n%s", p2)
+	}
+	all := flat(strings.Join(pages, "\n"))
+	if !strings.Contains(all, "Governed by CML PB1-01: 5 to 10 years; local damage: limit reached;") {
+		t.Error(`the girder's "Governed by" row does not say its local damage limit is reached`)
+	}
+}
