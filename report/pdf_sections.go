@@ -161,10 +161,11 @@ func (d *doc) summary() {
 		nComp += len(a.Components)
 	}
 	if d.summaryFirst() {
+		d.leftToExports()
+		d.heading(1, "Assets")
 		d.text(fmt.Sprintf("%s on %s of %s, summarised per asset. Thicknesses in %s, rates in %s, remaining life in years.",
 			plural(len(d.items), "CML", "CMLs"), plural(nComp, "component", "components"), plural(len(d.s.Assets), "asset", "assets"),
 			d.u.u, d.u.rateUnit))
-		d.leftToExports()
 		d.assetSummaries()
 	} else {
 		d.text(fmt.Sprintf("%s on %s of %s. Each component is governed by its most urgent CML; "+
