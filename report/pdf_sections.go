@@ -189,6 +189,13 @@ func (d *doc) componentSummaries() {
 		{"Thickness / required (" + u + ")", 24, "R"}, {"Rate (" + d.u.rateUnit + ")", 13, "R"}, {"Remaining life (y)", 16, "R"},
 		{"Next inspection", 19, "L"}, {"Repair window", d.width() - 154, "L"},
 	}
+	// A component without CMLs may still carry a finding (a test point not
+	// protected, a coating rejected): its row says so, not just "no CMLs".
+	found := map[[2]string][]string{}
+	for _, e := range d.f.Electro() {
+		k := [2]string{e.Asset, e.Component}
+		found[k] = append(found[k], electroFindingWords(e))
+	}
 	var rows [][]string
 	var styles []rowStyle
 	for _, a := range d.s.Assets {
@@ -196,6 +203,10 @@ func (d *doc) componentSummaries() {
 			g := d.f.Governing(c)
 			row := []string{a.Name + " / " + c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
 			st := rowStyle{}
+			if fs := found[[2]string{a.Name, c.Name}]; len(fs) > 0 && g == nil {
+				row[7] += "; " + strings.Join(fs, "; ") + " (see the findings)"
+				st = rowStyle{bold: true}
+			}
 			if g != nil {
 				r := g.Result
 				row[2] = g.CML.ID

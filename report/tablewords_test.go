@@ -51,7 +51,8 @@ func TestDemoPrintsOnlyDrawableCharacters(t *testing.T) {
 // bridge girder: Sx loss 15.7 % against the 10 % its engineer allows) never
 // reads as fine: the summary in words puts it under "now", and the
 // component's "Governed by" row says the limit is reached beside the wall's
-// repair window.
+// repair window. Likewise a component without CMLs but with a failing test
+// point or a rejected coating does not read as just "no CMLs".
 func TestDemoLocalLimitReadsAsNow(t *testing.T) {
 	pages := demoPages(t)
 	p2 := flat(pages[1])
@@ -60,6 +61,13 @@ func TestDemoLocalLimitReadsAsNow(t *testing.T) {
 	}
 	if regexp.MustCompile(`(5 to 10|10 years or more)[^.;]*: [^.;]*PB1-0[12]`).MatchString(p2) {
 		t.Errorf("the summary in words lists a girder CML in a later repair window:\n%s", p2)
+	}
+	// The summary table's rows of components without CMLs name their findings.
+	summary := flat(pages[1] + "\n" + pages[2])
+	for _, want := range []string{"no CMLs; cathodic protection: NOT PROTECTED", "no CMLs; dry-film thickness: REJECTED"} {
+		if !strings.Contains(summary, want) {
+			t.Errorf("the summary table lacks %q", want)
+		}
 	}
 	all := flat(strings.Join(pages, "\n"))
 	if !strings.Contains(all, "Governed by CML PB1-01: 5 to 10 years; local damage: limit reached;") {
