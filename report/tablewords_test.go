@@ -64,9 +64,9 @@ func TestDemoLocalLimitReadsAsNow(t *testing.T) {
 	}
 	// The summary table's rows of components without CMLs name their findings.
 	summary := flat(pages[1] + "\n" + pages[2])
-	for _, want := range []string{"no CMLs; cathodic protection: NOT PROTECTED", "no CMLs; dry-film thickness: REJECTED"} {
-		if !strings.Contains(summary, want) {
-			t.Errorf("the summary table lacks %q", want)
+	for _, want := range []string{`no CMLs;.{0,80}cathodic.{0,40}protection: NOT.{0,40}PROTECTED`, `no CMLs;.{0,80}dry-film.{0,40}thickness:.{0,40}REJECTED`} {
+		if !regexp.MustCompile(want).MatchString(summary) { // the cell wraps beside the asset name
+			t.Errorf("the summary table lacks %s", want)
 		}
 	}
 	all := flat(strings.Join(pages, "\n"))
