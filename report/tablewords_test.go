@@ -18,6 +18,8 @@ func TestDemoTablesKeepWordsWhole(t *testing.T) {
 		regexp.MustCompile(`(?m)\bThick- ness\b`),      // results: title with room to join
 		regexp.MustCompile(`(?m)^\s*e\s+[A-Z]+-[0-9]`), // a lone "e" ahead of an id
 		regexp.MustCompile(`\b(cp|dft): [A-Z]`),        // a finding's kind as a code, not in words
+		regexp.MustCompile(`iso-9224`),                 // a rate model's key, not the standard's name
+		regexp.MustCompile(`remaining life — y`),       // a unit after no value
 		regexp.MustCompile(`\\[_*]`),                   // a Markdown escape shown (t\_min)
 	} {
 		if m := cut.FindString(all); m != "" {
