@@ -59,7 +59,7 @@ func (d *doc) cover() {
 // headlines draws the four figures an owner reads first.
 func (d *doc) headlines() {
 	p := d.pdf
-	measured, below := 0, 0
+	measured, below, atLocalLimit := 0, 0, 0
 	var shortest, earliest *survey.Assessed
 	for _, it := range d.items {
 		r := it.Result
@@ -68,6 +68,8 @@ func (d *doc) headlines() {
 		}
 		if r.Class == wallloss.AtOrBelowRequired {
 			below++
+		} else if life, ok := it.Component.LocalLifeY(); ok && life <= 0 {
+			atLocalLimit++
 		}
 		if r.RemainingLifeY != nil && (shortest == nil || *r.RemainingLifeY < *shortest.Result.RemainingLifeY) {
 			shortest = it
@@ -82,6 +84,9 @@ func (d *doc) headlines() {
 		{strconv.Itoa(below), "CMLs at or below required thickness"},
 		{none, "shortest remaining life"},
 		{none, "earliest next inspection"},
+	}
+	if atLocalLimit > 0 { // they rank as at or below required: the cover must not hide them
+		figs[1].label += fmt.Sprintf(", and %d more by local damage at its limit", atLocalLimit)
 	}
 	if shortest != nil {
 		figs[2].value = years(shortest.Result.RemainingLifeY) + " years"

@@ -51,7 +51,7 @@ func TestDemoPrintsOnlyDrawableCharacters(t *testing.T) {
 
 // A CML whose component's local damage is at its limit (the demo's pipe
 // bridge girder: Sx loss 15.7 % against the 10 % its engineer allows) never
-// reads as fine: the summary in words puts it under "now", and the
+// reads as fine: the cover counts it, the summary in words puts it under "now", and the
 // component's "Governed by" row says the limit is reached beside the wall's
 // repair window. Likewise a component without CMLs but with a failing test
 // point or a rejected coating does not read as just "no CMLs".
@@ -63,6 +63,10 @@ func TestDemoLocalLimitReadsAsNow(t *testing.T) {
 	}
 	if regexp.MustCompile(`(5 to 10|10 years or more)[^.;]*: [^.;]*PB1-0[12]`).MatchString(p2) {
 		t.Errorf("the summary in words lists a girder CML in a later repair window:\n%s", p2)
+	}
+	// The cover's count of CMLs at or below required adds those at a local limit.
+	if !regexp.MustCompile(`and 2 more by local.{0,60}damage at its limit`).MatchString(flat(pages[0])) {
+		t.Errorf("the cover does not count PB1-01 and PB1-02 beside the CMLs at or below required:\n%s", flat(pages[0]))
 	}
 	// The summary table's rows of components without CMLs name their findings.
 	summary := flat(pages[1] + "\n" + pages[2])
