@@ -221,7 +221,7 @@ func (d *doc) planTables(p plan.Plan, cur string, sub bool) {
 		rows[i] = []string{string(c.Status), c.Candidate.Name(), c.Candidate.Cost.String(), strconv.Itoa(c.At),
 			strconv.Itoa(c.RiskBefore), value(c), strconv.Itoa(c.RiskEnd), missing, c.Why}
 	}
-	d.table([]column{{"Status", 25, "L"}, {"Asset / component", 32, "L"}, {"Cost (" + cur + ")", 16, "R"}, {"Numbers of year", 11, "R"},
+	d.table([]column{{"Status", 25, "L"}, {"Asset / component", 32, "L"}, {"Cost (" + cur + ")", 16, "R"}, {"Plan year of the numbers", 11, "R"},
 		{"Risk at year start", 11, "R"}, {valueTitle, 13, "R"}, {"Risk at end of plan", 12, "R"}, {"Missing (" + cur + ")", 15, "R"},
 		{"Why", 45, "L"}}, rows, nil, 7)
 	d.leftOut(len(rows), len(other), "the output of lossline plan, which lists every row")
