@@ -252,7 +252,7 @@ func (d *doc) assetSummaries() {
 		rows[i] = []string{a.Name, fmt.Sprintf("%d / %d", f.cmls, f.comps), strconv.Itoa(f.below), strconv.Itoa(f.window),
 			strconv.Itoa(f.accelerating), strconv.Itoa(f.notMeasured), strconv.Itoa(f.attention), worst, shortest, earliest}
 		if d.opts.Detail {
-			rows[i] = append(rows[i], detail[i])
+			rows[i][0] += " (" + detail[i] + ")"
 		}
 	}
 	w := d.width()
@@ -262,7 +262,8 @@ func (d *doc) assetSummaries() {
 		{"Worst CML (component): thickness / required (" + u + ")", 0, "L"},
 		{"Shortest life (y, CML)", 16, "L"}, {"Earliest next inspection (CML)", 19, "L"}}
 	if d.opts.Detail {
-		cols = append(cols, column{"Every component in full", 30, "L"})
+		cols[0].title = "Asset (its detail PDF: every component in full)"
+		cols[0].width = 30
 	}
 	fixed := 0.0
 	for _, c := range cols {
