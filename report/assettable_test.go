@@ -35,6 +35,16 @@ func TestSummaryFirstAssetsOneRowEach(t *testing.T) {
 			t.Errorf("row %d is %q with %s components, want %q with %d", i+1, r[1], r[3], a.Name, len(a.Components))
 		}
 	}
+	// The list of what needs attention names its column as every other
+	// table does: the repair window, not a "status".
+	head := strings.Index(text, "Needs attention because") // the list's last column title
+	if head < 0 {
+		t.Fatal("no list of what needs attention")
+	}
+	attention := text[max(0, head-1200) : head+30]
+	if !strings.Contains(attention, "Repair window") || regexp.MustCompile(`\sStatus\s`).MatchString(attention) {
+		t.Errorf("the list of what needs attention does not head its column Repair window:\n%s", attention)
+	}
 	if strings.Count(part, "\f") > 3 {
 		t.Errorf("the asset summary of %d assets runs over %d page breaks", len(rows), strings.Count(part, "\f"))
 	}

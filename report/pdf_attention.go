@@ -169,7 +169,7 @@ func (d *doc) attentionList() {
 	cols := []column{
 		{"Rank", 12, "R"}, {"Asset / component", 48, "L"}, {"CML", 17, "L"},
 		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit + ")", 16, "R"},
-		{"Remaining life (y)", 17, "R"}, {"Next inspection", 21, "L"}, {"Status", 40, "L"}, {"Needs attention because", 60, "L"},
+		{"Remaining life (y)", 17, "R"}, {"Next inspection", 21, "L"}, {"Repair window", 40, "L"}, {"Needs attention because", 60, "L"},
 	}
 	n := d.capRows(len(a.items))
 	rows := make([][]string, n)
