@@ -75,6 +75,11 @@ func TestDemoLocalLimitReadsAsNow(t *testing.T) {
 			t.Errorf("the summary table lacks %s", want)
 		}
 	}
+	// So does the changes table's repair window.
+	changes := regexp.MustCompile(`PB1-01 Pipe bridge PB-1 / Girder — 2026-11-18: 5 to 10 years; local .{0,60}damage: limit reached`)
+	if !changes.MatchString(flat(strings.Join(pages, "\n"))) {
+		t.Error("the changes table gives PB1-01's repair window without its local damage at the limit")
+	}
 	all := flat(strings.Join(pages, "\n"))
 	if !strings.Contains(all, "Governed by CML PB1-01: 5 to 10 years; local damage: limit reached;") {
 		t.Error(`the girder's "Governed by" row does not say its local damage limit is reached`)
