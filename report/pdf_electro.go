@@ -354,7 +354,11 @@ func (d *doc) coating(c *survey.Component) {
 		if e.RecoatCostPerM2 != nil {
 			cost, _, err := e.RecoatCostPerM2.Times(*co.BreakdownM2)
 			if err == nil {
-				s += fmt.Sprintf(" × %s per m² = %s (in the repair plan when a budget is set)", *e.RecoatCostPerM2, cost)
+				cur := d.f.Settings.Plan.Costs.Currency // the unit of every cost in the report
+				if cur != "" {
+					cur = " " + cur
+				}
+				s += fmt.Sprintf(" × %s%s per m² = %s%s (in the repair plan when a budget is set)", *e.RecoatCostPerM2, cur, cost, cur)
 			}
 		}
 		pairs = append(pairs, [2]string{"Breakdown to recoat", s})

@@ -26,6 +26,10 @@ func TestDemoTablesKeepWordsWhole(t *testing.T) {
 			t.Errorf("a word is cut in a table cell: %q", m)
 		}
 	}
+	// Every cost carries its currency (the demo's settings: EUR).
+	if !strings.Contains(all, "14 m² × 165 EUR per m² = 2 310 EUR") {
+		t.Error("the coating's recoat cost is printed without its currency")
+	}
 	for _, whole := range []string{"immediate LOCAL-", "nominal-based", "(2021-06-15)"} {
 		if !strings.Contains(all, whole) {
 			t.Errorf("the demo's tables lack %q whole", whole)
