@@ -26,10 +26,6 @@ func TestDemoTablesKeepWordsWhole(t *testing.T) {
 			t.Errorf("a word is cut in a table cell: %q", m)
 		}
 	}
-	// Every cost carries its currency (the demo's settings: EUR).
-	if !strings.Contains(all, "14 m² × 165 EUR per m² = 2 310 EUR") {
-		t.Error("the coating's recoat cost is printed without its currency")
-	}
 	for _, whole := range []string{"immediate LOCAL-", "nominal-based", "(2021-06-15)"} {
 		if !strings.Contains(all, whole) {
 			t.Errorf("the demo's tables lack %q whole", whole)
@@ -87,5 +83,20 @@ func TestDemoLocalLimitReadsAsNow(t *testing.T) {
 	all := flat(strings.Join(pages, "\n"))
 	if !strings.Contains(all, "Governed by CML PB1-01: 5 to 10 years; local damage: limit reached;") {
 		t.Error(`the girder's "Governed by" row does not say its local damage limit is reached`)
+	}
+}
+
+// The recoat cost of a coating carries the currency of the settings, as every
+// other cost does.
+func TestRecoatCostCarriesItsCurrency(t *testing.T) {
+	needPoppler(t)
+	f := demo(t)
+	f.Settings.Plan.Costs.Currency = "EUR"
+	pdf, _, err := PDF(f, testOptions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if all := flat(strings.Join(pdfPages(t, pdf), "\n")); !strings.Contains(all, "14 m² × 165 EUR per m² = 2 310 EUR") {
+		t.Error("the coating's recoat cost is printed without its currency")
 	}
 }
