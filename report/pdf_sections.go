@@ -190,9 +190,9 @@ func (d *doc) summary() {
 func (d *doc) componentSummaries() {
 	u := string(d.u.u)
 	cols := []column{
-		{"Asset / component", 58, "L"}, {"CMLs", 9, "R"}, {"Governing CML", 15, "L"},
+		{"Asset / component", 52, "L"}, {"CMLs", 9, "R"}, {"Governing CML", 15, "L"},
 		{"Thickness / required (" + u + ")", 24, "R"}, {"Rate (" + d.u.rateUnit + ")", 13, "R"}, {"Remaining life (y)", 16, "R"},
-		{"Next inspection", 19, "L"}, {"Repair window", d.width() - 154, "L"},
+		{"Next inspection", 19, "L"}, {"Repair window", d.width() - 148, "L"},
 	}
 	// A component without CMLs may still carry a finding (a test point not
 	// protected, a coating rejected): its row says so, not just "no CMLs".
