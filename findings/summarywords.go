@@ -209,8 +209,15 @@ func (f *Findings) dueWords() []string {
 	}
 	// Repair windows: how many CMLs fall in each band short of 10 years.
 	counts := map[wallloss.Window][]string{}
+	var localNow []string
 	for _, it := range f.Items {
 		w := wallloss.WindowOf(it.Result)
+		if life, ok := it.Component.LocalLifeY(); ok && life <= 0 && w != wallloss.WindowNow {
+			// The wall's window alone would read as fine: the CML ranks as
+			// at or below required by its component's local damage.
+			localNow = append(localNow, it.CML.ID)
+			continue
+		}
 		counts[w] = append(counts[w], it.CML.ID)
 	}
 	var parts []string
@@ -224,6 +231,9 @@ func (f *Findings) dueWords() []string {
 				name = "unknown (no remaining life can be computed)"
 			}
 			parts = append(parts, fmt.Sprintf("%s: %s", name, list(ids)))
+		}
+		if w == wallloss.WindowNow && len(localNow) > 0 {
+			parts = append(parts, "now (local damage at its limit): "+list(localNow))
 		}
 	}
 	if len(parts) > 0 {

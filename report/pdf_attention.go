@@ -169,7 +169,7 @@ func (d *doc) attentionList() {
 	cols := []column{
 		{"Rank", 12, "R"}, {"Asset / component", 48, "L"}, {"CML", 17, "L"},
 		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit + ")", 16, "R"},
-		{"Remaining life (y)", 17, "R"}, {"Next inspection", 21, "L"}, {"Status", 40, "L"}, {"Needs attention because", 60, "L"},
+		{"Remaining life (y)", 17, "R"}, {"Next inspection", 21, "L"}, {"Repair window", 40, "L"}, {"Needs attention because", 60, "L"},
 	}
 	n := d.capRows(len(a.items))
 	rows := make([][]string, n)
@@ -194,8 +194,9 @@ type assetFigures struct {
 	worst, shortest, earliest                                        *survey.Assessed
 }
 
-// assetSummaries writes one table per asset: its counts, worst CML, shortest
-// remaining life and earliest next inspection. One pass over the CMLs.
+// assetSummaries writes one table with a row per asset: its counts, worst
+// CML, shortest remaining life and earliest next inspection (and its detail
+// PDF). One pass over the CMLs.
 func (d *doc) assetSummaries() {
 	figs := map[*survey.Asset]*assetFigures{}
 	for _, a := range d.s.Assets {
@@ -234,36 +235,48 @@ func (d *doc) assetSummaries() {
 	}
 	u := string(d.u.u)
 	detail := DetailFiles(d.s.Assets)
+	rows := make([][]string, len(d.s.Assets))
 	for i, a := range d.s.Assets {
 		f := figs[a]
 		worst, shortest, earliest := none, none, none
 		if w := f.worst; w != nil {
-			worst = fmt.Sprintf("CML %s (%s): %s / %s %s, %s", w.CML.ID, w.Component.Name, d.u.thick(w.Result.ThicknessMM),
-				d.u.thick(w.Component.Design.RequiredMM), u, repairWindow(w.Result))
+			worst = fmt.Sprintf("%s (%s): %s / %s, %s", w.CML.ID, w.Component.Name, d.u.thick(w.Result.ThicknessMM),
+				d.u.thick(w.Component.Design.RequiredMM), repairWindow(w.Result))
 		}
 		if s := f.shortest; s != nil {
-			shortest = fmt.Sprintf("%s years (CML %s)", years(s.Result.RemainingLifeY), s.CML.ID)
+			shortest = fmt.Sprintf("%s (%s)", years(s.Result.RemainingLifeY), s.CML.ID)
 		}
 		if e := f.earliest; e != nil {
-			earliest = fmt.Sprintf("%s (CML %s)", day(e.Result.NextInspection), e.CML.ID)
+			earliest = fmt.Sprintf("%s (%s)", day(e.Result.NextInspection), e.CML.ID)
 		}
-		rows := [][]string{
-			{"CMLs / components", fmt.Sprintf("%d on %d components", f.cmls, f.comps)},
-			{"At or below required", strconv.Itoa(f.below)},
-			{fmt.Sprintf("Remaining life within %g years", d.opts.Limits.DetailWindowYears), strconv.Itoa(f.window) + " (besides those at or below required)"},
-			{"Accelerating", strconv.Itoa(f.accelerating)},
-			{"Not re-measured at this visit", strconv.Itoa(f.notMeasured)},
-			{"Need attention", strconv.Itoa(f.attention)},
-			{"Worst CML (thickness / required)", worst},
-			{"Shortest remaining life", shortest},
-			{"Earliest next inspection", earliest},
-		}
+		rows[i] = []string{a.Name, fmt.Sprintf("%d / %d", f.cmls, f.comps), strconv.Itoa(f.below), strconv.Itoa(f.window),
+			strconv.Itoa(f.accelerating), strconv.Itoa(f.notMeasured), strconv.Itoa(f.attention), worst, shortest, earliest}
 		if d.opts.Detail {
-			rows = append(rows, []string{"Every component in full", detail[i]})
+			rows[i][0] += " (" + detail[i] + ")"
 		}
-		d.heading(2, a.Name)
-		d.table([]column{{"Figure", 60, "L"}, {"Value", d.width() - 60, "L"}}, rows, nil, smallSize)
 	}
+	w := d.width()
+	cols := []column{{"Asset", 20, "L"}, {"CMLs / compo\u00ad nents", 14, "R"}, {"At or below required", 12, "R"},
+		{fmt.Sprintf("Life within %g years", d.opts.Limits.DetailWindowYears), 12, "R"}, {"Accel\u00ad erating", 13, "R"},
+		{"Not re- measured", 13, "R"}, {"Need atten\u00ad tion", 12, "R"},
+		{"Worst CML (component): thickness / required (" + u + ")", 0, "L"},
+		{"Shortest life (y, CML)", 16, "L"}, {"Earliest next inspection (CML)", 19, "L"}}
+	if d.opts.Detail {
+		cols[0].title = "Asset (its detail PDF: every component in full)"
+		cols[0].width = 30
+	}
+	fixed := 0.0
+	for _, c := range cols {
+		fixed += c.width
+	}
+	cols[7].width = w - fixed
+	d.text(fmt.Sprintf("One row per asset. Life within %g years counts the CMLs besides those at or below required; "+
+		"need attention counts each CML once, whatever its reasons.", d.opts.Limits.DetailWindowYears))
+	d.pdf.Ln(1)
+	d.table(cols, rows, func(i int) rowStyle {
+		b := figs[d.s.Assets[i]].below > 0
+		return rowStyle{bold: b}
+	}, smallSize)
 }
 
 // DetailFiles are the names of the assets' detail PDFs, in order:

@@ -28,7 +28,7 @@ func (d *doc) budgetCurve(c plan.Curve, cur string) {
 	d.need(curveH + 50) // heading, text and chart on one page
 	d.heading(1, "Budget curve")
 	d.text(fmt.Sprintf("The most %s by the first year's selection for each first-year budget, the year's mandatory repairs "+
-		"(%s %s) paid first: what more money would buy. %s The command lossline plan with the flag curve writes its steps as CSV.",
+		"(%s %s) paid first: what more money would buy. %s The command lossline plan --curve writes its steps as CSV.",
 		unit, c.Forced, cur, CurveMethod(c, cur)))
 	if c.Total == 0 {
 		d.text("No repair is left for the selection, so there is no curve.")

@@ -67,6 +67,7 @@ func (d *doc) changesSection() {
 			if c.Previous != nil {
 				window = repairWindow(*c.Previous) + " → " + window
 			}
+			window += localStatus(it) // as the summary and the ranked list say it
 			var words []string
 			for _, code := range c.Codes {
 				words = append(words, code.Describe())

@@ -76,8 +76,12 @@ func (d *doc) component(a *survey.Asset, c *survey.Component) {
 	pairs = append(pairs, d.rateSourcePair(c)...)
 	if g := d.f.Governing(c); g != nil {
 		r := g.Result
-		gov := fmt.Sprintf("CML %s: %s; remaining life %s y; next inspection %s",
-			g.CML.ID, repairWindow(r), years(r.RemainingLifeY), day(r.NextInspection))
+		life := "; remaining life " + years(r.RemainingLifeY) + " y"
+		if r.RemainingLifeY == nil {
+			life = "" // the repair window says why there is none
+		}
+		gov := fmt.Sprintf("CML %s: %s%s%s; next inspection %s",
+			g.CML.ID, repairWindow(r), localStatus(g), life, day(r.NextInspection))
 		var unknown []string
 		for _, m := range c.CMLs {
 			if it := d.assessed(m); it != nil && it.Result.Class == wallloss.LifeUnknown {
@@ -237,7 +241,7 @@ func (d *doc) results(c *survey.Component) {
 	d.heading(2, "Results")
 	u, ru := string(d.u.u), d.u.rateUnit
 	cols := []column{
-		{"CML", 14, "L"}, {"Thick- ness (" + u + ")", 16, "R"}, {"Long- term rate (" + ru + ")", 17, "R"},
+		{"CML", 14, "L"}, {"Thick\u00ad ness (" + u + ")", 16, "R"}, {"Long- term rate (" + ru + ")", 17, "R"},
 		{"Short- term rate (" + ru + ")", 17, "R"}, {"Governing rate (" + ru + ")", 18, "R"}, {"Remaining life (y)", 18, "R"},
 		{"Retirement date", 21, "L"}, {"Next inspection", 23, "L"}, {"Repair window and flags", 36, "L"},
 	}
@@ -261,7 +265,9 @@ func (d *doc) results(c *survey.Component) {
 			next += "; external " + day(r.NextExternal)
 		}
 		rate := d.u.rate(r.RateMMPerY)
-		if r.RateModel != "" && r.RateModel != wallloss.ModelMax {
+		if r.RateModel == wallloss.ModelISO9224 {
+			rate += " ISO 9224" // the standard's name, as the methods appendix writes it
+		} else if r.RateModel != "" && r.RateModel != wallloss.ModelMax {
 			rate += " " + string(r.RateModel)
 		}
 		if r.RateUpperMMPerY != nil {

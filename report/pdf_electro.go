@@ -6,6 +6,7 @@ import (
 	"strings"
 	"time"
 
+	"github.com/lossline/lossline/findings"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/electrochem"
 	"github.com/lossline/lossline/survey/wallloss"
@@ -200,7 +201,7 @@ func (d *doc) testPoints(e *survey.Electro) {
 	}
 	w := d.width()
 	d.table([]column{{"Point", 14, "L"}, {"Date", 19, "L"}, {"Electrode", 20, "L"}, {"On (mV)", 13, "R"}, {"Off (mV)", 13, "R"},
-		{"Native (mV)", 15, "R"}, {"Off (mV CSE)", 15, "R"}, {"Polar- isation (mV)", 15, "R"}, {"Result", w - 124, "L"}}, rows,
+		{"Native (mV)", 15, "R"}, {"Off (mV CSE)", 15, "R"}, {"Polar\u00ad isation (mV)", 15, "R"}, {"Result", w - 124, "L"}}, rows,
 		func(i int) rowStyle { return rowStyle{bold: bold[i]} }, smallSize)
 	limit := electrochem.PolarisedLimitMV
 	if e.Anaerobic {
@@ -353,7 +354,11 @@ func (d *doc) coating(c *survey.Component) {
 		if e.RecoatCostPerM2 != nil {
 			cost, _, err := e.RecoatCostPerM2.Times(*co.BreakdownM2)
 			if err == nil {
-				s += fmt.Sprintf(" × %s per m² = %s (in the repair plan when a budget is set)", *e.RecoatCostPerM2, cost)
+				cur := d.f.Settings.Plan.Costs.Currency // the unit of every cost in the report
+				if cur != "" {
+					cur = " " + cur
+				}
+				s += fmt.Sprintf(" × %s%s per m² = %s%s (in the repair plan when a budget is set)", *e.RecoatCostPerM2, cur, cost, cur)
 			}
 		}
 		pairs = append(pairs, [2]string{"Breakdown to recoat", s})
@@ -395,7 +400,7 @@ func (d *doc) electroMethods() {
 	d.markdown(b.String())
 }
 
-// electroFindings lists, after the summary, the test points failing their
+// electroFindings lists, after the actions, the test points failing their
 // criteria, rejected dry-film batches and warned metal pairs, each with its
 // checklist line; nothing when there are none.
 func (d *doc) electroFindings() {
@@ -403,18 +408,33 @@ func (d *doc) electroFindings() {
 	if len(fs) == 0 {
 		return
 	}
-	d.heading(1, "Cathodic protection, coatings and metal pairs: findings")
+	d.chapter(60) // a chapter of its own: it is in the contents
+	d.heading(0, "Cathodic protection, coatings and metal pairs: findings")
 	rows := make([][]string, len(fs))
 	for i, e := range fs {
 		who := e.Component
 		if e.Subject != "" {
 			who += " / " + e.Subject
 		}
-		rows[i] = []string{e.Asset, who, e.Kind + ": " + strings.ToUpper(e.Status), strings.Join(e.Reasons, "; ")}
+		rows[i] = []string{e.Asset, who, electroFindingWords(e), strings.Join(e.Reasons, "; ")}
 	}
 	w := d.width()
 	d.table([]column{{"Asset", 32, "L"}, {"Component / point", 36, "L"}, {"Finding", 26, "L"}, {"Why", w - 94, "L"}}, rows, // checklist lines: results.json and the data checks
 		func(int) rowStyle { return rowStyle{bold: true} }, smallSize)
+}
+
+// electroFindingWords is a finding's kind and status in words, the status in
+// capitals ("cathodic protection: NOT PROTECTED").
+func electroFindingWords(e findings.ElectroFinding) string {
+	kind := map[string]string{"cp": "cathodic protection", "dft": "dry-film thickness"}[e.Kind]
+	if kind == "" {
+		kind = e.Kind
+	}
+	status := e.Status
+	if status == "warn" {
+		status = "warning"
+	}
+	return kind + ": " + strings.ToUpper(status)
 }
 
 // rateSourcePair is the component header's rate-source row, when the

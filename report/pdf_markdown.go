@@ -6,6 +6,7 @@ import (
 	"github.com/yuin/goldmark"
 	"github.com/yuin/goldmark/ast"
 	"github.com/yuin/goldmark/text"
+	"github.com/yuin/goldmark/util"
 )
 
 // prose parses the report's Markdown texts (templates and checklist notes).
@@ -80,7 +81,9 @@ func (d *doc) inline(block ast.Node, src []byte, base string, size, h float64) {
 			switch c := c.(type) {
 			case *ast.Text:
 				d.font(style, size)
-				d.pdf.Write(h, string(c.Segment.Value(src)))
+				// The segment is the raw source: drop the backslash of an
+				// escape ("t\_min" prints "t_min").
+				d.pdf.Write(h, string(util.UnescapePunctuations(c.Segment.Value(src))))
 				if c.SoftLineBreak() || c.HardLineBreak() {
 					d.pdf.Write(h, " ")
 				}

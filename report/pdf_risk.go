@@ -203,7 +203,7 @@ func (d *doc) planTables(p plan.Plan, cur string, sub bool) {
 			rows[i] = []string{string(c.Status), strconv.Itoa(c.Year), c.Candidate.Name(), c.Candidate.Cost.String(),
 				strconv.Itoa(c.RiskBefore), strconv.Itoa(c.RiskAfter), value(c), c.Why}
 		}
-		d.table([]column{{"Status", 25, "L"}, {"Year", 9, "R"}, {"Asset / component", 36, "L"}, {"Cost (" + cur + ")", 17, "R"},
+		d.table([]column{{"Funding status", 25, "L"}, {"Year", 9, "R"}, {"Asset / component", 36, "L"}, {"Cost (" + cur + ")", 17, "R"},
 			{"Risk at year start", 12, "R"}, {"After repair", 12, "R"}, {valueTitle, 14, "R"}, {"Why", 55, "L"}}, rows, nil, 7)
 		d.leftOut(len(rows), len(funded), "the output of lossline plan, which lists every row")
 	}
@@ -221,7 +221,7 @@ func (d *doc) planTables(p plan.Plan, cur string, sub bool) {
 		rows[i] = []string{string(c.Status), c.Candidate.Name(), c.Candidate.Cost.String(), strconv.Itoa(c.At),
 			strconv.Itoa(c.RiskBefore), value(c), strconv.Itoa(c.RiskEnd), missing, c.Why}
 	}
-	d.table([]column{{"Status", 25, "L"}, {"Asset / component", 32, "L"}, {"Cost (" + cur + ")", 16, "R"}, {"Numbers of year", 11, "R"},
+	d.table([]column{{"Funding status", 25, "L"}, {"Asset / component", 32, "L"}, {"Cost (" + cur + ")", 16, "R"}, {"Plan year of the numbers", 11, "R"},
 		{"Risk at year start", 11, "R"}, {valueTitle, 13, "R"}, {"Risk at end of plan", 12, "R"}, {"Missing (" + cur + ")", 15, "R"},
 		{"Why", 45, "L"}}, rows, nil, 7)
 	d.leftOut(len(rows), len(other), "the output of lossline plan, which lists every row")

@@ -59,7 +59,7 @@ func (d *doc) cover() {
 // headlines draws the four figures an owner reads first.
 func (d *doc) headlines() {
 	p := d.pdf
-	measured, below := 0, 0
+	measured, below, atLocalLimit := 0, 0, 0
 	var shortest, earliest *survey.Assessed
 	for _, it := range d.items {
 		r := it.Result
@@ -68,6 +68,8 @@ func (d *doc) headlines() {
 		}
 		if r.Class == wallloss.AtOrBelowRequired {
 			below++
+		} else if life, ok := it.Component.LocalLifeY(); ok && life <= 0 {
+			atLocalLimit++
 		}
 		if r.RemainingLifeY != nil && (shortest == nil || *r.RemainingLifeY < *shortest.Result.RemainingLifeY) {
 			shortest = it
@@ -82,6 +84,9 @@ func (d *doc) headlines() {
 		{strconv.Itoa(below), "CMLs at or below required thickness"},
 		{none, "shortest remaining life"},
 		{none, "earliest next inspection"},
+	}
+	if atLocalLimit > 0 { // they rank as at or below required: the cover must not hide them
+		figs[1].label += fmt.Sprintf(", and %d more by local damage at its limit", atLocalLimit)
 	}
 	if shortest != nil {
 		figs[2].value = years(shortest.Result.RemainingLifeY) + " years"
@@ -161,10 +166,11 @@ func (d *doc) summary() {
 		nComp += len(a.Components)
 	}
 	if d.summaryFirst() {
+		d.leftToExports()
+		d.heading(1, "Assets")
 		d.text(fmt.Sprintf("%s on %s of %s, summarised per asset. Thicknesses in %s, rates in %s, remaining life in years.",
 			plural(len(d.items), "CML", "CMLs"), plural(nComp, "component", "components"), plural(len(d.s.Assets), "asset", "assets"),
 			d.u.u, d.u.rateUnit))
-		d.leftToExports()
 		d.assetSummaries()
 	} else {
 		d.text(fmt.Sprintf("%s on %s of %s. Each component is governed by its most urgent CML; "+
@@ -184,9 +190,16 @@ func (d *doc) summary() {
 func (d *doc) componentSummaries() {
 	u := string(d.u.u)
 	cols := []column{
-		{"Asset / component", 58, "L"}, {"CMLs", 9, "R"}, {"Governing CML", 15, "L"},
+		{"Asset / component", 52, "L"}, {"CMLs", 9, "R"}, {"Governing CML", 15, "L"},
 		{"Thickness / required (" + u + ")", 24, "R"}, {"Rate (" + d.u.rateUnit + ")", 13, "R"}, {"Remaining life (y)", 16, "R"},
-		{"Next inspection", 19, "L"}, {"Repair window", d.width() - 154, "L"},
+		{"Next inspection", 19, "L"}, {"Repair window", d.width() - 148, "L"},
+	}
+	// A component without CMLs may still carry a finding (a test point not
+	// protected, a coating rejected): its row says so, not just "no CMLs".
+	found := map[[2]string][]string{}
+	for _, e := range d.f.Electro() {
+		k := [2]string{e.Asset, e.Component}
+		found[k] = append(found[k], electroFindingWords(e))
 	}
 	var rows [][]string
 	var styles []rowStyle
@@ -195,6 +208,10 @@ func (d *doc) componentSummaries() {
 			g := d.f.Governing(c)
 			row := []string{a.Name + " / " + c.Name, strconv.Itoa(len(c.CMLs)), none, none, none, none, none, "no CMLs"}
 			st := rowStyle{}
+			if fs := found[[2]string{a.Name, c.Name}]; len(fs) > 0 && g == nil {
+				row[7] += "; " + strings.Join(fs, "; ") + " (see the findings)"
+				st = rowStyle{bold: true}
+			}
 			if g != nil {
 				r := g.Result
 				row[2] = g.CML.ID
@@ -227,7 +244,7 @@ func (d *doc) ranked() {
 		{"Rank", 11, "R"}, {"Asset / component", 50, "L"}, {"CML", 15, "L"},
 		{"Thickness (" + u + ")", 18, "R"}, {"Required (" + u + ")", 18, "R"}, {"Rate (" + d.u.rateUnit + ")", 16, "R"},
 		{"Remaining life (y)", 19, "R"}, {"Retirement date", 21, "L"}, {"Next inspection", 21, "L"},
-		{"Conse- quence", 17, "L"}, {"Repair window", 27, "L"}, {"Flags", 34, "L"},
+		{"Conse\u00ad quence", 17, "L"}, {"Repair window", 27, "L"}, {"Flags", 34, "L"},
 	}
 	rows := make([][]string, len(d.items))
 	for i, it := range d.items {
