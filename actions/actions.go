@@ -2,8 +2,6 @@ package actions
 
 import (
 	"cmp"
-	"crypto/sha256"
-	"encoding/hex"
 	"fmt"
 	"slices"
 	"strings"
@@ -181,11 +179,16 @@ func Register(in Input) []Action {
 			if sc.Done {
 				continue
 			}
+			id := survey.ScopeActionID(loc.Asset.Name, c.Name, sc.Text)
+			reason, raised := "not done in this visit: "+plainText(sc.Text)+"; revisit by the next inspection", s.Date
+			if since, ok := s.ScopeSince[id]; ok {
+				reason, raised = fmt.Sprintf("not done in this visit, nor since the visit of %s: %s; revisit by the next inspection",
+					since.Format(time.DateOnly), plainText(sc.Text)), since
+			}
 			out = append(out, Action{
-				ID: survey.IDScopeNotDone + hash(loc.Asset.Name, c.Name, sc.Text), Kind: ScopeNotDone, Priority: Medium, Due: due,
-				Asset: loc.Asset.Name, Component: c.Name,
-				Reason: "not done in this visit: " + plainText(sc.Text) + "; revisit by the next inspection",
-				Rule:   "a scope item not ticked is revisited", File: c.File, Line: sc.Line,
+				ID: id, Kind: ScopeNotDone, Priority: Medium, Due: due, Raised: raised,
+				Asset: loc.Asset.Name, Component: c.Name, Reason: reason,
+				Rule: "a scope item not ticked is revisited", File: c.File, Line: sc.Line,
 			})
 		}
 	}
@@ -239,7 +242,19 @@ func Register(in Input) []Action {
 		out = append(out, written(w, s.Date, nil))
 	}
 	for _, c := range s.Carried {
-		out = append(out, written(c.WrittenAction, s.Date, c.Closed))
+		a := written(c.WrittenAction, s.Date, c.Closed)
+		if c.FromScope {
+			// Left not done by an earlier visit and not in this checklist: it
+			// was due by this visit.
+			a.Kind, a.Rule = ScopeNotDone, "a scope item not done stays open until a later checklist ticks it or a closure names it"
+			a.Reason = fmt.Sprintf("not done at the visit of %s and not in this survey's checklist: %s; do it, list it, or close it",
+				c.Raised.Format(time.DateOnly), plainText(c.Text))
+			a.Due = s.Date
+			if a.Status == Open {
+				a.Status = Overdue
+			}
+		}
+		out = append(out, a)
 	}
 	for i := range out {
 		if out[i].Raised.IsZero() {
@@ -298,10 +313,7 @@ func accelerating(ch survey.Change) bool {
 
 // hash is the first six hex digits (upper case) of the SHA-256 of the parts
 // joined by NUL bytes: a short id that stays the same while the names do.
-func hash(parts ...string) string {
-	h := sha256.Sum256([]byte(strings.Join(parts, "\x00")))
-	return strings.ToUpper(hex.EncodeToString(h[:3]))
-}
+func hash(parts ...string) string { return survey.ActionHash(parts...) }
 
 // plainText drops the Markdown emphasis marks of a checklist line.
 func plainText(s string) string {

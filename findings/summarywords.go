@@ -281,6 +281,16 @@ func (f *Findings) notDoneWords() []string {
 	default:
 		out = append(out, fmt.Sprintf("Not covered by the results: %s.", strings.Join(items, "; ")))
 	}
+	var carried []string
+	for _, c := range f.Survey.Carried {
+		if c.FromScope && c.Closed == nil {
+			carried = append(carried, fmt.Sprintf("%s / %s: %s (visit of %s)", c.Asset, c.Component, inlineMarks.Replace(c.Text), c.Raised.Format(time.DateOnly)))
+		}
+	}
+	if len(carried) > 0 {
+		out = append(out, fmt.Sprintf("Left not done by an earlier visit and not in this survey's checklist, so still open and overdue: %s.",
+			list(carried)))
+	}
 	var stale []string
 	for _, it := range f.Items {
 		if it.Result.FromEarlierVisit() {

@@ -41,10 +41,27 @@ type ActionClosure struct {
 }
 
 // CarriedAction is an action written in an earlier survey and not closed
-// before this one; Closed is set when this survey closes it.
+// before this one; Closed is set when this survey closes it. FromScope marks
+// a scope item an earlier survey left not done and this one does not list:
+// it stays open until a later checklist ticks it or a closure names it.
 type CarriedAction struct {
 	WrittenAction
-	Closed *ActionClosure
+	Closed    *ActionClosure
+	FromScope bool
+}
+
+// ScopeActionID is the id of the action a scope item not done raises:
+// IDScopeNotDone and the first six hex digits of the SHA-256 of the asset,
+// component and item text, so it stays the same from survey to survey.
+func ScopeActionID(asset, component, text string) string {
+	return IDScopeNotDone + ActionHash(asset, component, text)
+}
+
+// ActionHash is the first six hex digits (upper case) of the SHA-256 of
+// the parts joined by NUL: the subject of a computed action's id.
+func ActionHash(parts ...string) string {
+	h := sha256.Sum256([]byte(strings.Join(parts, "\x00")))
+	return strings.ToUpper(hex.EncodeToString(h[:3]))
 }
 
 // ActionPriorities are the priorities of an action, most urgent first.
@@ -217,6 +234,24 @@ func carryActions(s *Survey) ProblemList {
 			for _, a := range e.Actions {
 				open = append(open, CarriedAction{WrittenAction: a})
 			}
+			open = carryScope(open, e)
+		}
+	}
+	// This survey's checklist: a ticked item closes the carried one; an item
+	// not done again is this survey's own action (since the earlier date).
+	s.ScopeSince = map[string]time.Time{}
+	for loc := range componentsOfSurvey(s) {
+		for _, it := range loc.Component.Scope {
+			id := ScopeActionID(loc.Asset.Name, loc.Component.Name, it.Text)
+			i := slices.IndexFunc(open, func(a CarriedAction) bool { return a.FromScope && a.ID == id })
+			switch {
+			case i < 0:
+			case it.Done:
+				open[i].Closed = &ActionClosure{ID: id, Date: s.Date, Note: "done at this visit (ticked in the checklist)", File: loc.Component.File, Line: it.Line}
+			default:
+				s.ScopeSince[id] = open[i].Raised
+				open = slices.Delete(open, i, i+1)
+			}
 		}
 	}
 	for _, c := range s.Closures {
@@ -240,6 +275,40 @@ func carryActions(s *Survey) ProblemList {
 	}
 	s.Carried = open
 	return problems
+}
+
+// carryScope adds the scope items earlier survey e left not done to the
+// open actions (the first survey that left an item not done raised it) and
+// removes those e ticked.
+func carryScope(open []CarriedAction, e *Survey) []CarriedAction {
+	for loc := range componentsOfSurvey(e) {
+		for _, it := range loc.Component.Scope {
+			id := ScopeActionID(loc.Asset.Name, loc.Component.Name, it.Text)
+			i := slices.IndexFunc(open, func(a CarriedAction) bool { return a.FromScope && a.ID == id })
+			switch {
+			case it.Done && i >= 0:
+				open = slices.Delete(open, i, i+1)
+			case !it.Done && i < 0:
+				open = append(open, CarriedAction{FromScope: true, WrittenAction: WrittenAction{
+					ID: id, Text: it.Text, Due: e.Date, Priority: "medium", Asset: loc.Asset.Name, Component: loc.Component.Name,
+					Raised: e.Date, File: loc.Component.File, Line: it.Line}})
+			}
+		}
+	}
+	return open
+}
+
+// componentsOfSurvey yields every component of s with its asset.
+func componentsOfSurvey(s *Survey) func(func(Located) bool) {
+	return func(yield func(Located) bool) {
+		for _, a := range s.Assets {
+			for _, c := range a.Components {
+				if !yield(Located{Asset: a, Component: c}) {
+					return
+				}
+			}
+		}
+	}
 }
 
 func openIDs(open []CarriedAction) string {

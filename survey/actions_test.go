@@ -5,6 +5,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 )
 
 const actionSurvey = `---
@@ -161,5 +162,59 @@ previous: ../2024
 	}
 	if !found {
 		t.Errorf("want %q, got %v", want, problems)
+	}
+}
+
+// Scope items not done carry: the 2022 survey leaves three not done; 2024
+// ticks one and lists another not done again; the third, which 2024 does not
+// list, reaches 2024 carried (to be shown overdue) and a later checklist
+// that ticks it closes it.
+func TestScopeItemsCarryOver(t *testing.T) {
+	root := t.TempDir()
+	write := func(dir, src string) string {
+		t.Helper()
+		d := filepath.Join(root, dir)
+		if err := os.MkdirAll(d, 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(filepath.Join(d, ChecklistFile), []byte(src), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return d
+	}
+	survey := func(date, previous, scope string) string {
+		prev := ""
+		if previous != "" {
+			prev = "previous: ../" + previous + "\n"
+		}
+		return "---\ntitle: Scope\nsite: Yard\ndate: " + date + "\ninspector: Test\nunits: mm\n" + prev + "---\n# Tank\n\n## Shell\n\n- nominal: 8\n- required: 4\n\n" +
+			"| CML | " + date + " |\n|---|---|\n| S1 | 7.5 |\n\n" + scope
+	}
+	write("2022", survey("2022-06-01", "", "- [ ] Magnetic-particle test at N3\n- [ ] Roof plates\n- [ ] Bottom scan\n"))
+	dir := write("2024", survey("2024-06-01", "2022", "- [x] Magnetic-particle test at N3\n- [ ] Roof plates\n"))
+	s, problems := LoadSeries(dir, nil, DefaultOptions)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	bottom, roof := ScopeActionID("Tank", "Shell", "Bottom scan"), ScopeActionID("Tank", "Shell", "Roof plates")
+	mpi := ScopeActionID("Tank", "Shell", "Magnetic-particle test at N3")
+	if len(s.Carried) != 2 || s.Carried[0].ID != mpi || s.Carried[0].Closed == nil || s.Carried[0].Closed.Line != 20 ||
+		s.Carried[1].ID != bottom || !s.Carried[1].FromScope || s.Carried[1].Closed != nil ||
+		!s.Carried[1].Raised.Equal(time.Date(2022, 6, 1, 0, 0, 0, 0, time.UTC)) {
+		t.Fatalf("2024 carries %+v, want the test at N3 closed by its tick at line 20 and the bottom scan open, raised 2022-06-01", s.Carried)
+	}
+	if since, ok := s.ScopeSince[roof]; !ok || since.Year() != 2022 {
+		t.Errorf("roof plates not done since %v (%v), want 2022", since, ok)
+	}
+	// 2026 ticks both: the roof plates, left not done in 2022 and 2024, and the
+	// bottom scan are closed by their ticks.
+	dir = write("2026", survey("2026-06-01", "2024", "- [x] Bottom scan\n- [x] Roof plates\n"))
+	s, problems = LoadSeries(dir, nil, DefaultOptions)
+	if problems.HasErrors() {
+		t.Fatal(problems)
+	}
+	if len(s.Carried) != 2 || s.Carried[0].ID != roof || s.Carried[1].ID != bottom ||
+		s.Carried[0].Closed == nil || s.Carried[1].Closed == nil || s.Carried[1].Closed.Line != 20 {
+		t.Errorf("2026 carries %+v, want the roof plates (not done since 2022) and the bottom scan, both closed by their ticks", s.Carried)
 	}
 }

@@ -45,6 +45,9 @@ type Survey struct {
 	Actions  []WrittenAction
 	Closures []ActionClosure
 	Carried  []CarriedAction
+	// ScopeSince gives, by action id, the date of the earlier survey that
+	// first left a scope item not done which this survey leaves not done again.
+	ScopeSince map[string]time.Time
 }
 
 // Asset is a tank, a piping system, a bridge: a `# heading` in the checklist.
