@@ -153,3 +153,24 @@ func TestActionsExports(t *testing.T) {
 		t.Errorf("closed action: %+v", last)
 	}
 }
+
+// The instruments are listed per visit: this survey's two gauges under its
+// date, and the gauge the 2022 survey of the transfer line lists under 2022.
+func TestInstrumentsByVisit(t *testing.T) {
+	f := demo(t)
+	pdf, _, err := PDF(f, testOptions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	var text string
+	for _, p := range pdfPages(t, pdf) {
+		if strings.Contains(p, "Instruments, by visit") {
+			text = flat(p)
+		}
+	}
+	for _, want := range []string{"2026-11-18 ultrasonic thickness UTG-4471", "UTG-5120", "2022-05-10 ultrasonic thickness UTG-3108"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("instruments by visit lack %q:\n%s", want, text)
+		}
+	}
+}

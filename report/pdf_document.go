@@ -192,7 +192,7 @@ func (d *doc) recordsAppendix() {
 			}
 		}
 	}
-	if len(doc.Instruments) == 0 && len(repairs) == 0 && len(doc.Revisions) == 0 {
+	if len(instrumentVisits(d.s)) == 0 && len(repairs) == 0 && len(doc.Revisions) == 0 {
 		return
 	}
 	d.need(60)
@@ -205,23 +205,25 @@ func (d *doc) recordsAppendix() {
 		}
 		d.table([]column{{"Revision", 20, "L"}, {"Date", 26, "L"}, {"Description", d.width() - 46, "L"}}, rows, nil, bodySize-1)
 	}
-	if len(doc.Instruments) > 0 {
-		d.heading(2, "Instruments")
-		rows := make([][]string, len(doc.Instruments))
-		for i, in := range doc.Instruments {
-			cal := none
-			if !in.Calibrated.IsZero() {
-				cal = in.Calibrated.Format(dateLayout)
-				if in.Calibrated.Before(d.s.Date.AddDate(-1, 0, 0)) {
-					cal += " (over 12 months before the survey)"
+	if visits := instrumentVisits(d.s); len(visits) > 0 {
+		d.heading(2, "Instruments, by visit")
+		var rows [][]string
+		for _, v := range visits {
+			for _, in := range v.s.Document.Instruments {
+				cal := none
+				if !in.Calibrated.IsZero() {
+					cal = in.Calibrated.Format(dateLayout)
+					if in.Calibrated.Before(v.s.Date.AddDate(-1, 0, 0)) {
+						cal += " (over 12 months before the visit)"
+					}
 				}
+				rows = append(rows, []string{v.s.Date.Format(dateLayout) + v.which, in.Type, in.Serial, in.Probe, in.Block, cal, in.Velocity})
 			}
-			rows[i] = []string{in.Type, in.Serial, in.Probe, in.Block, cal, in.Velocity}
 		}
 		w := d.width()
-		d.table([]column{{"Type", 32, "L"}, {"Serial", 24, "L"}, {"Probe", 32, "L"}, {"Calibration block", 34, "L"},
-			{"Calibrated", 22, "L"}, {"Velocity or mode", w - 144, "L"}}, rows, nil, smallSize)
-		d.text("A calibration older than 12 months at the survey date is marked: renewing it every 12 months is common practice; the owner's procedure governs.")
+		d.table([]column{{"Visit", 24, "L"}, {"Type", 28, "L"}, {"Serial", 22, "L"}, {"Probe", 28, "L"}, {"Calibration block", 30, "L"},
+			{"Calibrated", 22, "L"}, {"Velocity or mode", w - 154, "L"}}, rows, nil, smallSize)
+		d.text("Each visit's instruments as its survey lists them. A calibration older than 12 months at the visit is marked: renewing it every 12 months is common practice; the owner's procedure governs.")
 	}
 	if len(repairs) > 0 {
 		d.heading(2, "Repairs between visits")
@@ -233,6 +235,29 @@ func (d *doc) recordsAppendix() {
 		}
 		d.table([]column{{"Component", 50, "L"}, {"Repair", d.width() - 50, "L"}}, rows, nil, smallSize)
 	}
+}
+
+// instrumentVisit is a survey of the series that lists instruments.
+type instrumentVisit struct {
+	s     *survey.Survey
+	which string // " (this)" for this survey's own visit, "" for an earlier one
+}
+
+// instrumentVisits are this survey and its earlier ones that list
+// instruments, newest first.
+func instrumentVisits(s *survey.Survey) []instrumentVisit {
+	var out []instrumentVisit
+	if len(s.Document.Instruments) > 0 {
+		out = append(out, instrumentVisit{s, " (this)"})
+	}
+	if h := s.History; h != nil {
+		for _, e := range h.Earlier {
+			if len(e.Document.Instruments) > 0 {
+				out = append(out, instrumentVisit{e, ""})
+			}
+		}
+	}
+	return out
 }
 
 // footerText is the left part of every page's footer: the draft mark, the

@@ -483,7 +483,7 @@ func TestImportAgainstEarlierFolder(t *testing.T) {
 	_ = os.WriteFile(file, []byte("CML,2022-05-10\nA-01,6.26\n"), 0o644)
 	code, _, errOut = runCLI(t, "import", dir, file)
 	earlier := filepath.Join(filepath.Dir(dir), "demo-2022", "survey.md")
-	if code != exitBadInput || !strings.Contains(errOut, earlier+":23: CML A-01, visit 2022-05-10: readings 6.62 mm differ from 6.26 mm at "+file+":2") {
+	if code != exitBadInput || !strings.Contains(errOut, earlier+":30: CML A-01, visit 2022-05-10: readings 6.62 mm differ from 6.26 mm at "+file+":2") {
 		t.Errorf("different readings: exit %d\n%s", code, errOut)
 	}
 }
