@@ -100,6 +100,10 @@ type Input struct {
 	CP []survey.FailingPoint
 }
 
+// ActNow is what an action due at once asks for, in the same words wherever
+// the report says it.
+const ActNow = "repair, re-rate after an engineering assessment of fitness for service, or take out of service"
+
 // CorrectWithin is the time within which a test point that does not meet
 // the protection criterion is investigated and corrected: three months,
 // lossline's choice (common practice is to correct deficiencies found in a
@@ -129,7 +133,7 @@ func Register(in Input) []Action {
 			out = append(out, Action{
 				ID: survey.IDBelowRequired + it.CML.ID, Kind: BelowRequired, Priority: Immediate, Due: s.Date,
 				Asset: it.Asset.Name, Component: it.Component.Name, CML: it.CML.ID,
-				Reason: fmt.Sprintf("reads %.2f mm on %s, at or below the required %.2f mm: repair, re-rate or take out of service",
+				Reason: fmt.Sprintf("reads %.2f mm on %s, at or below the required %.2f mm: "+ActNow,
 					*r.ThicknessMM, r.CurrentDate.Format(time.DateOnly), *r.RequiredMM()),
 				Rule: "a CML at or below its required thickness is acted on at once", File: it.CML.File, Line: it.CML.Line,
 			})
@@ -170,7 +174,7 @@ func Register(in Input) []Action {
 				out = append(out, Action{
 					ID: survey.IDLocalLimit + hash(loc.Asset.Name, c.Name, a.Key), Kind: LocalLimit, Priority: Immediate, Due: s.Date,
 					Asset: loc.Asset.Name, Component: c.Name,
-					Reason: fmt.Sprintf("%s: %s; repair, re-rate or take out of service", a.Method, plainText(a.Result)),
+					Reason: fmt.Sprintf("%s: %s; %s", a.Method, plainText(a.Result), ActNow),
 					Rule:   "local damage at its limit is acted on at once", File: c.File, Line: a.Line,
 				})
 			}

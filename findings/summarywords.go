@@ -6,6 +6,7 @@ import (
 	"strings"
 	"time"
 
+	"github.com/lossline/lossline/actions"
 	"github.com/lossline/lossline/survey"
 	"github.com/lossline/lossline/survey/wallloss"
 )
@@ -69,7 +70,7 @@ func (f *Findings) urgentWords(u WordUnits) []string {
 		if r.RateMMPerY != nil && *r.RateMMPerY > 0 {
 			s += fmt.Sprintf(", losing %s", u.Rate(*r.RateMMPerY))
 		}
-		out = append(out, s+". It calls for action now: repair, or an engineering assessment of fitness for service.")
+		out = append(out, s+". It calls for action now: "+actions.ActNow+".")
 	}
 	if len(below) == 0 {
 		out = append(out, "No CML is at or below its required thickness.")
@@ -121,7 +122,7 @@ func (f *Findings) localWords() []string {
 				switch {
 				case la.LifeY == nil || *la.LifeY >= 5:
 				case *la.LifeY <= 0:
-					out = append(out, fmt.Sprintf("Local damage on %s / %s has reached its limit (%s: %s). It calls for action now: repair, re-rate or an engineering assessment.",
+					out = append(out, fmt.Sprintf("Local damage on %s / %s has reached its limit (%s: %s). It calls for action now: "+actions.ActNow+".",
 						a.Name, c.Name, la.Method, strings.TrimSuffix(la.Result, ".")))
 				default:
 					out = append(out, fmt.Sprintf("Local damage on %s / %s leaves %.1f years before its limit (%s).",
