@@ -35,29 +35,8 @@ func (d *doc) trend(c *survey.Component) {
 	xOf := func(t time.Time) float64 { return x0 + t.Sub(ch.From).Hours()/span*w }
 	yOf := func(mm float64) float64 { return y0 + h - (mm-ch.LowMM)/(ch.HighMM-ch.LowMM)*h }
 
-	// Frame, grid and ticks.
-	p.SetLineWidth(0.2)
-	p.SetDrawColor(0, 0, 0)
-	p.Rect(x0, y0, w, h, "D")
-	d.font("", 7)
-	p.SetDrawColor(200, 200, 200)
-	p.SetDashPattern([]float64{0.6, 0.8}, 0)
-	for _, v := range niceTicks(d.u.u.FromMM(ch.LowMM), d.u.u.FromMM(ch.HighMM), 7) {
-		y := yOf(d.u.u.ToMM(v))
-		p.Line(x0, y, x0+w, y)
-		p.SetXY(margin, y-1.5)
-		p.CellFormat(chartLeft-1.5, 3, trimFloat(v), "", 0, "R", false, 0, "")
-	}
-	for _, yr := range yearTicks(ch.From, ch.To, 10) {
-		x := xOf(yr)
-		p.Line(x, y0, x, y0+h)
-		p.SetXY(x-6, y0+h+0.8)
-		p.CellFormat(12, 3, yr.Format("2006"), "", 0, "C", false, 0, "")
-	}
-	p.SetDashPattern(nil, 0)
-	p.SetDrawColor(0, 0, 0)
-	p.SetXY(margin, y0-4)
-	p.CellFormat(60, 3, "Thickness ("+string(d.u.u)+")", "", 0, "L", false, 0, "")
+	d.timeAxes(x0, y0, w, h, niceTicks(d.u.u.FromMM(ch.LowMM), d.u.u.FromMM(ch.HighMM), 7), func(v float64) float64 { return yOf(d.u.u.ToMM(v)) },
+		yearTicks(ch.From, ch.To, 10), xOf, "Thickness ("+string(d.u.u)+")")
 	p.SetXY(x0+w-40, y0+h+4.5)
 	p.CellFormat(40, 3, "Date (year)", "", 0, "R", false, 0, "")
 
@@ -261,4 +240,32 @@ func yearTicks(from, to time.Time, n int) []time.Time {
 
 func trimFloat(v float64) string {
 	return fmt.Sprintf("%g", math.Round(v*1000)/1000)
+}
+
+// timeAxes draws a time chart's frame, its dotted grid and labels at the
+// value ticks (yAt places one) and at the years, and the value axis title.
+func (d *doc) timeAxes(x0, y0, w, h float64, ticks []float64, yAt func(float64) float64, years []time.Time, xOf func(time.Time) float64, title string) {
+	p := d.pdf
+	p.SetLineWidth(0.2)
+	p.SetDrawColor(0, 0, 0)
+	p.Rect(x0, y0, w, h, "D")
+	d.font("", 7)
+	p.SetDrawColor(200, 200, 200)
+	p.SetDashPattern([]float64{0.6, 0.8}, 0)
+	for _, v := range ticks {
+		y := yAt(v)
+		p.Line(x0, y, x0+w, y)
+		p.SetXY(margin, y-1.5)
+		p.CellFormat(chartLeft-1.5, 3, trimFloat(v), "", 0, "R", false, 0, "")
+	}
+	for _, yr := range years {
+		x := xOf(yr)
+		p.Line(x, y0, x, y0+h)
+		p.SetXY(x-6, y0+h+0.8)
+		p.CellFormat(12, 3, yr.Format("2006"), "", 0, "C", false, 0, "")
+	}
+	p.SetDashPattern(nil, 0)
+	p.SetDrawColor(0, 0, 0)
+	p.SetXY(margin, y0-4)
+	p.CellFormat(d.width(), 3, title, "", 0, "L", false, 0, "")
 }

@@ -50,20 +50,7 @@ func WritePhotosPDF(w io.Writer, f *findings.Findings, opts Options) (survey.Pro
 	}
 	for _, a := range d.s.Assets {
 		for _, c := range a.Components {
-			var shown []photoShown
-			for _, m := range c.CMLs {
-				for _, ph := range d.f.Photos.OfCML(m) {
-					if e := d.photos[ph.Name]; e != nil {
-						shown = append(shown, photoShown{entry: e, cml: m.ID})
-					}
-				}
-			}
-			for _, ph := range d.f.Photos.OfComponent(c) {
-				if e := d.photos[ph.Name]; e != nil {
-					shown = append(shown, photoShown{entry: e})
-				}
-			}
-			if len(shown) > 0 {
+			if shown := d.componentPhotos(c); len(shown) > 0 {
 				d.need(photoMaxH + 20)
 				d.heading(1, a.Name+" / "+c.Name)
 				d.photoGrid(shown)

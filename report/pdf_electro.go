@@ -269,27 +269,7 @@ func (d *doc) potentialChart(e *survey.Electro, limit, over float64) {
 	span := to.Sub(from).Hours()
 	xOf := func(t time.Time) float64 { return x0 + t.Sub(from).Hours()/span*w }
 	yOf := func(v float64) float64 { return y0 + (hi-v)/(hi-lo)*h } // less negative at the top
-	p.SetLineWidth(0.2)
-	p.Rect(x0, y0, w, h, "D")
-	d.font("", 7)
-	p.SetDrawColor(200, 200, 200)
-	p.SetDashPattern([]float64{0.6, 0.8}, 0)
-	for _, v := range niceTicks(lo, hi, 6) {
-		y := yOf(v)
-		p.Line(x0, y, x0+w, y)
-		p.SetXY(margin, y-1.5)
-		p.CellFormat(chartLeft-1.5, 3, trimFloat(v), "", 0, "R", false, 0, "")
-	}
-	for _, yr := range yearTicks(from, to, 10) {
-		x := xOf(yr)
-		p.Line(x, y0, x, y0+h)
-		p.SetXY(x-6, y0+h+0.8)
-		p.CellFormat(12, 3, yr.Format("2006"), "", 0, "C", false, 0, "")
-	}
-	p.SetDashPattern(nil, 0)
-	p.SetDrawColor(0, 0, 0)
-	p.SetXY(margin, y0-4)
-	p.CellFormat(80, 3, "Potential (mV CSE); more negative is lower", "", 0, "L", false, 0, "")
+	d.timeAxes(x0, y0, w, h, niceTicks(lo, hi, 6), yOf, yearTicks(from, to, 10), xOf, "Potential (mV CSE); more negative is lower")
 	for _, ref := range []struct {
 		v     float64
 		label string
