@@ -26,6 +26,19 @@ func demoPages(t *testing.T) []string {
 	return pdfPages(t, pdf)
 }
 
+// contentsPage is the index of the first contents page; the test stops
+// without one.
+func contentsPage(t *testing.T, pages []string) int {
+	t.Helper()
+	for i, p := range pages {
+		if isContentsPage(p) {
+			return i
+		}
+	}
+	t.Fatal("no contents page")
+	return -1
+}
+
 // isContentsPage reports whether a page opens with the Contents heading
 // (below the running header of document number and DRAFT mark).
 func isContentsPage(p string) bool {
@@ -51,16 +64,7 @@ func TestDemoReadsAsADeliverable(t *testing.T) {
 	pages := demoPages(t)
 
 	// Contents: find the page, read its entries.
-	ci := -1
-	for i, p := range pages {
-		if isContentsPage(p) {
-			ci = i
-			break
-		}
-	}
-	if ci < 0 {
-		t.Fatal("no contents page")
-	}
+	ci := contentsPage(t, pages)
 	type entry struct {
 		title string
 		page  int
@@ -177,16 +181,7 @@ func TestContentsOverSeveralPages(t *testing.T) {
 		t.Fatal(err)
 	}
 	pages := pdfPages(t, pdf)
-	first := -1
-	for i, p := range pages {
-		if isContentsPage(p) {
-			first = i
-			break
-		}
-	}
-	if first < 0 {
-		t.Fatal("no contents page")
-	}
+	first := contentsPage(t, pages)
 	listed := 0
 	for i := first; i < first+2; i++ {
 		for _, line := range strings.Split(pages[i], "\n") {

@@ -93,17 +93,7 @@ func TestWrittenActionProblems(t *testing.T) {
 // or leaves it open; a closure naming no open action is an error.
 func TestActionsCarryOver(t *testing.T) {
 	root := t.TempDir()
-	write := func(dir, src string) string {
-		t.Helper()
-		d := filepath.Join(root, dir)
-		if err := os.MkdirAll(d, 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(filepath.Join(d, ChecklistFile), []byte(src), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return d
-	}
+	write := func(dir, src string) string { return writeChecklist(t, root, dir, src) }
 	write("2024", actionSurvey)
 	next := `---
 title: Actions
@@ -171,17 +161,7 @@ previous: ../2024
 // that ticks it closes it.
 func TestScopeItemsCarryOver(t *testing.T) {
 	root := t.TempDir()
-	write := func(dir, src string) string {
-		t.Helper()
-		d := filepath.Join(root, dir)
-		if err := os.MkdirAll(d, 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(filepath.Join(d, ChecklistFile), []byte(src), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return d
-	}
+	write := func(dir, src string) string { return writeChecklist(t, root, dir, src) }
 	survey := func(date, previous, scope string) string {
 		prev := ""
 		if previous != "" {
