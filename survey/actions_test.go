@@ -1,7 +1,6 @@
 package survey
 
 import (
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
