@@ -33,7 +33,7 @@ func (d *doc) actionsSection() {
 	if overdue > 0 {
 		intro += fmt.Sprintf(" %d %s OVERDUE: due before this survey's date and not closed.", overdue, word(overdue, "is", "are"))
 	}
-	intro += " Computed actions are worked out afresh from every survey's readings; an action the inspector writes carries into later surveys until one closes it. The id stays the same from survey to survey."
+	intro += " Computed actions are worked out afresh from every survey's readings; an action the inspector writes, and a scope item left not done, carries into later surveys until one closes it (a scope item also by ticking it). The id stays the same from survey to survey."
 	d.text(intro)
 	d.pdf.Ln(2)
 	rows := make([][]string, d.capRows(len(open)))
