@@ -20,7 +20,7 @@ type Limits struct {
 }
 
 // DefaultLimits are the limits of the settings' defaults.
-var DefaultLimits = Limits{FullDetailMaxCMLs: 1000, FullDetailMaxComponents: 25, DetailWindowYears: 5, ListMaxRows: 500}
+var DefaultLimits = Limits{FullDetailMaxCMLs: 1000, FullDetailMaxComponents: 60, DetailWindowYears: 5, ListMaxRows: 500}
 
 // attention is what a summary-first report shows in full: the CMLs that need
 // attention in rank order, and the components shown in full.
