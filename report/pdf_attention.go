@@ -298,7 +298,8 @@ func DetailFiles(assets []*survey.Asset) []string {
 }
 
 // assetSlug is an asset's name in lower-case letters and digits, runs of
-// anything else as one dash ("asset" when nothing is left).
+// anything else as one dash ("asset" when nothing is left), at most maxSlug
+// bytes.
 func assetSlug(asset string) string {
 	var b strings.Builder
 	dash := false
@@ -316,8 +317,12 @@ func assetSlug(asset string) string {
 	if b.Len() == 0 {
 		return "asset"
 	}
-	return b.String()
+	// File systems refuse names over 255 bytes; a long asset name is cut.
+	return strings.TrimRight(b.String()[:min(b.Len(), maxSlug)], "-")
 }
+
+// maxSlug is the longest asset part of a detail file's name, in bytes.
+const maxSlug = 80
 
 // assets writes each asset with all its components in full, or in a
 // summary-first report only the components chosen to be shown in full.

@@ -235,8 +235,11 @@ func TestDetailFilesWrittenAndReplaced(t *testing.T) {
 }
 
 func TestDetailFileNames(t *testing.T) {
-	assets := []*survey.Asset{{Name: "Tank T-101"}, {Name: "tank t 101"}, {Name: "Δ"}, {Name: "Bridge FB2 / deck"}}
-	want := []string{"detail-tank-t-101.pdf", "detail-tank-t-101-2.pdf", "detail-asset.pdf", "detail-bridge-fb2-deck.pdf"}
+	// A file name is at most 255 bytes on common file systems (ext4, NTFS,
+	// APFS): a 300-letter asset name is cut to 80.
+	long := strings.Repeat("x", 300)
+	assets := []*survey.Asset{{Name: "Tank T-101"}, {Name: "tank t 101"}, {Name: "Δ"}, {Name: "Bridge FB2 / deck"}, {Name: long}}
+	want := []string{"detail-tank-t-101.pdf", "detail-tank-t-101-2.pdf", "detail-asset.pdf", "detail-bridge-fb2-deck.pdf", "detail-" + long[:80] + ".pdf"}
 	if got := DetailFiles(assets); !slices.Equal(got, want) {
 		t.Errorf("got %v, want %v", got, want)
 	}
