@@ -69,7 +69,7 @@ func (d *doc) breachSection() {
 		b  plan.Breach
 	}
 	var shown []row
-	var low, estimate, unknown []string
+	var low, estimate, other, unknown []string
 	var ends []string
 	for _, it := range d.items {
 		b := d.f.BreachOf(it)
@@ -81,6 +81,8 @@ func (d *doc) breachSection() {
 		switch {
 		case b.P == nil && b.Spread.Kind == plan.SpreadEstimate && b.MarginMM != nil:
 			estimate = append(estimate, it.CML.ID)
+		case b.P == nil && b.Spread.Kind == plan.SpreadOtherRate:
+			other = append(other, it.CML.ID)
 		case b.P == nil:
 			unknown = append(unknown, it.CML.ID)
 		case !b.Reached && b.P[len(b.P)-1] < 0.0005:
@@ -129,6 +131,7 @@ func (d *doc) breachSection() {
 	}{
 		{low, "below 0.1 % by " + ends[len(ends)-1]},
 		{estimate, "single-visit estimates: no probability"},
+		{other, "whose life a coupon's or probe's rate governs: no probability (the wall readings' spread does not describe that rate)"},
 		{unknown, "no probability: no readings or no required thickness"},
 	} {
 		if len(g.ids) > 0 {

@@ -14,10 +14,11 @@ type SpreadKind int
 
 // Spread kinds.
 const (
-	SpreadNone     SpreadKind = iota // no readings, or a required thickness missing
-	SpreadEstimate                   // one visit: the rate is an estimate, no probability
-	SpreadNormal                     // normal: two visits, or a fit whose scatter is below the gauge's
-	SpreadStudentT                   // Student t: the least-squares fit through three or more visits
+	SpreadNone      SpreadKind = iota // no readings, or a required thickness missing
+	SpreadEstimate                    // one visit: the rate is an estimate, no probability
+	SpreadOtherRate                   // a coupon or probe rate governs: the wall readings' spread does not describe it
+	SpreadNormal                      // normal: two visits, or a fit whose scatter is below the gauge's
+	SpreadStudentT                    // Student t: the least-squares fit through three or more visits
 )
 
 // RateSpread is a corrosion rate and its uncertainty: the rate R (mm/y, loss
@@ -29,6 +30,7 @@ type RateSpread struct {
 	Scale float64 // standard error of the rate, mm/y
 	DOF   int     // Student t only
 	N     int     // visits it rests on
+	From  string  // SpreadOtherRate only: the coupon or probe whose rate governs
 }
 
 // Exceeds is P(R ≥ need): the probability that the true rate is at least need.
@@ -67,6 +69,8 @@ func (s RateSpread) Describe() string {
 	switch s.Kind {
 	case SpreadEstimate:
 		return "single-visit estimate: no probability"
+	case SpreadOtherRate:
+		return "the " + s.From + " rate governs: no probability (the wall readings' spread does not describe that rate)"
 	case SpreadNormal:
 		if s.N > 2 {
 			return fmt.Sprintf("least-squares fit of %d visits, normal with the gauge's error: rate %.4f ± %.4f mm/y", s.N, s.Rate, s.Scale)
@@ -156,6 +160,11 @@ func (b Breach) Model() string {
 func BreachOf(it *survey.Assessed, tolMM float64, by []time.Time) Breach {
 	b := Breach{Spread: SpreadOf(survey.RateReadings(it.Component, it.CML), tolMM), By: by}
 	r := it.Result
+	if r.RateFrom != "" {
+		// A coupon's or probe's rate governs the life: a probability from the
+		// wall's slower rate would understate the chance of reaching required.
+		b.Spread = RateSpread{Kind: SpreadOtherRate, From: r.RateFrom}
+	}
 	req := r.RequiredMM()
 	if r.ThicknessMM == nil || req == nil {
 		return b

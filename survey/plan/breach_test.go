@@ -167,4 +167,12 @@ func TestBreachOf(t *testing.T) {
 	if b.P == nil || !(b.P[0] < 1e-6 && math.Abs(b.P[1]-0.5) < 0.01 && b.P[2] > 0.99) {
 		t.Errorf("two visits, 0.2 mm above required at 0.1 mm/y: %v", b.P)
 	}
+	// The same CML whose life a coupon's faster rate governs: the wall
+	// readings' spread does not describe that rate, so no probability (it
+	// would understate the chance of reaching required).
+	c := mk(8.8, readingsOf([]string{"2016-05-20", "2026-05-20"}, 10, 9))
+	c.Result.RateFrom = "coupon C-1"
+	if cb := BreachOf(c, 0.28, by); cb.P != nil || cb.Model() != "the coupon C-1 rate governs: no probability (the wall readings' spread does not describe that rate)" {
+		t.Errorf("coupon rate governs: %+v, %q", cb.P, cb.Model())
+	}
 }
