@@ -229,3 +229,45 @@ func (s *Survey) FailingTestPoints() []FailingPoint {
 	}
 	return out
 }
+
+// earlierElectroWarnings warns, once per earlier survey folder, at the first
+// coupon, probe, test-point or anode row it holds: those tables are read
+// from this survey's checklist only, so an earlier folder's rows would
+// otherwise be left out without a word.
+func earlierElectroWarnings(s *Survey) ProblemList {
+	var problems ProblemList
+	if s.History == nil {
+		return nil
+	}
+	for _, e := range s.History.Earlier {
+		if line := firstElectroRow(e); line > 0 {
+			problems.Warnf(e.File, line, "the coupon, probe, test-point and anode tables of an earlier survey folder are not read into this report "+
+				"(only the newest survey's own are): write the earlier rows into its tables to trend them")
+		}
+	}
+	return problems
+}
+
+// firstElectroRow is the line of the first coupon, probe, test-point or
+// anode row of s, or 0.
+func firstElectroRow(s *Survey) int {
+	for loc := range componentsOfSurvey(s) {
+		e := loc.Component.Design.Electro
+		if e == nil {
+			continue
+		}
+		switch {
+		case len(e.Coupons) > 0:
+			return e.Coupons[0].Line
+		case len(e.ERProbes) > 0:
+			return e.ERProbes[0].Line
+		case len(e.LPRProbes) > 0:
+			return e.LPRProbes[0].Line
+		case len(e.TestPoints) > 0 && len(e.TestPoints[0].Visits) > 0:
+			return e.TestPoints[0].Visits[0].Line
+		case len(e.Anodes) > 0:
+			return e.Anodes[0].Line
+		}
+	}
+	return 0
+}

@@ -221,3 +221,27 @@ func readmeText(t *testing.T) string {
 	}
 	return string(b)
 }
+
+// A test-point table in an earlier survey folder is not merged: the reader
+// says so at its first row instead of leaving it out without a word.
+func TestEarlierElectroTablesWarned(t *testing.T) {
+	root := t.TempDir()
+	front := func(date, prev string) string {
+		return "---\ntitle: CP\nsite: Yard\ndate: " + date + "\ninspector: Test\nunits: mm\n" + prev + "---\n# Tank farm CP\n\n## Bed\n\n"
+	}
+	writeChecklist(t, root, "2025", front("2025-11-14", "")+
+		"| test point | date | electrode | on (mV) | off (mV) | native (mV) |\n|---|---|---|---|---|---|\n| TP-1 | 2025-11-14 | CSE | -1105 | -948 | - |\n\n"+
+		"| CML | 2025-11-14 |\n|---|---|\n| C1 | 9.5 |\n")
+	dir := writeChecklist(t, root, "2026", front("2026-11-18", "previous: ../2025\n")+
+		"| test point | date | electrode | on (mV) | off (mV) | native (mV) |\n|---|---|---|---|---|---|\n| TP-1 | 2026-11-18 | CSE | -1090 | -935 | - |\n\n"+
+		"| CML | 2026-11-18 |\n|---|---|\n| C1 | 9.4 |\n")
+	_, problems := LoadSeries(dir, nil, DefaultOptions)
+	want := filepath.Join(root, "2025", ChecklistFile) + ":14: warning: the coupon, probe, test-point and anode tables of an earlier survey folder are not read"
+	found := false
+	for _, p := range problems {
+		found = found || strings.HasPrefix(p.String(), want)
+	}
+	if !found {
+		t.Errorf("want %q, got %v", want, problems)
+	}
+}

@@ -130,6 +130,7 @@ func loadSeries(dir string, extra []string, opt Options) (*Survey, ProblemList) 
 		problems = append(problems, requiredWarnings(s)...)
 		problems = append(problems, plausibility(s)...)
 		problems = append(problems, carryActions(s)...)
+		problems = append(problems, earlierElectroWarnings(s)...)
 		problems = append(problems, repairBeforeReadings(s)...)
 	}
 	problems = append(problems, readingChecks(s)...)
