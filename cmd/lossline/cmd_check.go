@@ -44,7 +44,7 @@ func runCheck(c *cobra.Command, args []string) error {
 			errs++
 		}
 	}
-	fmt.Fprintf(w, "%d errors, %d warnings\n", errs, len(problems)-errs)
+	fmt.Fprintf(w, "%d %s, %d %s\n", errs, plural(errs, "error", "errors"), len(problems)-errs, plural(len(problems)-errs, "warning", "warnings"))
 	if errs > 0 {
 		return silentExit(exitBadInput)
 	}

@@ -106,7 +106,7 @@ func runImport(c *cobra.Command, args []string) error {
 	for _, p := range problems {
 		fmt.Fprintln(report, p)
 	}
-	fmt.Fprintf(report, "%d CMLs, %d warnings\n", len(after.AllCMLs()), len(problems))
+	fmt.Fprintf(report, "%d %s, %d %s\n", len(after.AllCMLs()), plural(len(after.AllCMLs()), "CML", "CMLs"), len(problems), plural(len(problems), "warning", "warnings"))
 	return nil
 }
 

@@ -119,7 +119,8 @@ func runReport(c *cobra.Command, args []string) error {
 	for _, f := range files {
 		fmt.Fprintf(w, "wrote %s (%d KB)\n", filepath.Join(out, f.Name), (f.Size+1023)/1024)
 	}
-	fmt.Fprintf(w, "%d CMLs, %d at or below required thickness, %d warnings\n", len(f.Items), below, len(problems)+len(warnings()))
+	nw := len(problems) + len(warnings())
+	fmt.Fprintf(w, "%d %s, %d at or below required thickness, %d %s\n", len(f.Items), plural(len(f.Items), "CML", "CMLs"), below, nw, plural(nw, "warning", "warnings"))
 	return nil
 }
 

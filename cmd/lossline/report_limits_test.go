@@ -178,7 +178,7 @@ func TestReportLimits(t *testing.T) {
 				writeSurvey(t, filepath.Join(root, "site"), "Emoji", "Gauge calibrated 🙂 before the survey.")
 				return []string{"check", filepath.Join(root, "site")}
 			},
-			want: []string{"site/survey.md:9: warning: character 🙂 (U+1F642) cannot be drawn in the PDF; it will show as □", "0 errors, 1 warnings"},
+			want: []string{"site/survey.md:9: warning: character 🙂 (U+1F642) cannot be drawn in the PDF; it will show as □", "0 errors, 1 warning"},
 		},
 		{
 			name: "emoji in a note: the report shows the replacement",
