@@ -66,8 +66,10 @@ func plausibility(s *Survey) ProblemList {
 		for _, c := range a.Components {
 			for _, m := range c.CMLs {
 				problems = append(problems, w.readingSlips(s, c, m, slipped)...)
+				problems = append(problems, growth(s, c, m, slipped)...)
 			}
 			problems = append(problems, w.steps(s, c, slipped)...)
+			problems = append(problems, nominalOff(s, c, &w, slipped)...)
 		}
 		problems = append(problems, farPositions(a)...)
 	}

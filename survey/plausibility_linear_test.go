@@ -118,8 +118,10 @@ func plausibilityDirect(s *Survey) ProblemList {
 						}
 					}
 				}
+				problems = append(problems, growth(s, c, m, slipped)...)
 			}
 			problems = append(problems, stepsDirect(s, c, slipped)...)
+			problems = append(problems, nominalOff(s, c, &plausibilityWork{}, slipped)...)
 		}
 		problems = append(problems, farPositionsDirect(a)...)
 	}

@@ -60,6 +60,21 @@ func TestPlausibilityWarnings(t *testing.T) {
 		{"a step within gauge tolerance and margin", "mm", "- nominal: 10",
 			"| CML | 2016-05-01 | 2021-05-01 | 2026-05-01 |\n|---|---|---|---|\n" +
 				"| C-1 | 9.9 | 9.9 | 9.9 |\n| C-2 | 9.8 | 9.8 | 9.8 |\n| C-3 | 9.9 | 9.85 | 9.2 |\n", ""},
+		// A wall does not grow between visits (common practice: a later reading
+		// thicker by more than the gauge tolerance, 0.28 mm, plus 0.5 mm is a
+		// slip, a different spot, or an unrecorded repair).
+		{"a transposed digit makes the wall grow", "mm", "- nominal: 12.7",
+			"| CML | 2016-05-01 | 2021-05-01 | 2026-05-01 |\n|---|---|---|---|\n| C-1 | 12.52 | 12.31 | 21.05 |\n",
+			`17: warning: CML C-1, visit 2026-05-01: 21.05 mm is 8.74 mm thicker than on 2021-05-01 (12.31 mm): a wall does not grow`},
+		{"growth within the gauge tolerance and margin", "mm", "- nominal: 10",
+			"| CML | 2021-05-01 | 2026-05-01 |\n|---|---|---|\n| C-1 | 9.0 | 9.6 |\n", ""},
+		{"a recorded repair between the visits", "mm", "- nominal: 10\n- repaired: 2022-01-10; new 10; plate replaced",
+			"| CML | 2021-05-01 | 2026-05-01 |\n|---|---|---|\n| C-1 | 6.0 | 9.9 |\n", ""},
+		// A nominal ten times the readings (common practice: walls read within
+		// a fifth over nominal, mill tolerance plus gauge error).
+		{"a nominal with its decimal point slipped", "mm", "- nominal: 95",
+			"| CML | 2016-05-01 | 2021-05-01 | 2026-05-01 |\n|---|---|---|---|\n| C-1 | 9.6 | 9.5 | 9.4 |\n| C-2 | 9.5 | 9.4 | 9.3 |\n",
+			`13: warning: the median of the latest readings of "Course 1" (9.35 mm) is far below its nominal 95 mm`},
 		{"longitude without its minus sign", "mm", "- nominal: 10",
 			"| CML | gps | 2026-05-01 |\n|---|---|---|\n| C-1 | 45.60238, -61.35078 | 9.5 |\n| C-2 | 45.60241, -61.35012 | 9.5 |\n" +
 				"| C-3 | 45.60262, 61.35031 | 9.5 |\n| C-4 | 45.60290, -61.35050 | 9.5 |\n",
