@@ -101,13 +101,13 @@ func JudgeDFT(readingsUM []float64, nominalUM, maxUM float64) (DFTJudgement, err
 		j.Reasons = append(j.Reasons, fmt.Sprintf("mean %.1f µm is below nominal %.0f µm", j.MeanUM, nominalUM))
 	}
 	if j.BelowEighty > 0 {
-		j.Reasons = append(j.Reasons, fmt.Sprintf("%d reading(s) below 80 %% of nominal (lowest %.0f µm)", j.BelowEighty, j.MinUM))
+		j.Reasons = append(j.Reasons, fmt.Sprintf("%s below 80 %% of nominal (lowest %.0f µm)", readings(j.BelowEighty), j.MinUM))
 	}
 	if float64(j.BelowNominal) > 0.2*float64(n) {
 		j.Reasons = append(j.Reasons, fmt.Sprintf("%d of %d readings between 80 %% and nominal, more than 20 %%", j.BelowNominal, n))
 	}
 	if j.AboveMaximum > 0 {
-		j.Reasons = append(j.Reasons, fmt.Sprintf("%d reading(s) above the maximum %.0f µm", j.AboveMaximum, maxUM))
+		j.Reasons = append(j.Reasons, fmt.Sprintf("%s above the maximum %.0f µm", readings(j.AboveMaximum), maxUM))
 	}
 	j.Accepted = len(j.Reasons) == 0
 	return j, nil
@@ -153,4 +153,12 @@ func GalvanizingLifeOf(zincUM float64, category string) (GalvanizingLife, error)
 		g.step("%s: zinc ≤ %.3g µm/a; life ≥ %.0f µm / %.3g = %.1f y", category, r[1], zincUM, r[1], g.ShortestY)
 	}
 	return g, nil
+}
+
+// readings is n readings in words.
+func readings(n int) string {
+	if n == 1 {
+		return "1 reading"
+	}
+	return fmt.Sprintf("%d readings", n)
 }
