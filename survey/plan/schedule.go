@@ -75,6 +75,7 @@ type Totals struct {
 
 // Plan is the repairs funded year by year and what is left over.
 type Plan struct {
+	Currency  string // of every amount ("" when not set)
 	Objective Objective
 	Start     time.Time
 	Budgets   []survey.Money // per plan year
@@ -115,6 +116,7 @@ type Options struct {
 	CarryOver   bool
 	Money       MoneyModel
 	ToleranceMM float64 // gauge tolerance, for probabilities of breach
+	Currency    string  // of every amount, printed with the reasons
 }
 
 // Single plans one year: repairs of components at or below required first;
@@ -149,7 +151,7 @@ func Schedule(cands []*Candidate, start time.Time, budgets []survey.Money, o Opt
 	}
 	years := len(budgets)
 	val := valuation{objective: o.Objective, start: start, years: years, money: o.Money}
-	p := Plan{Objective: o.Objective, Start: start, Budgets: budgets, CarryOver: o.CarryOver, Money: o.Money,
+	p := Plan{Currency: o.Currency, Objective: o.Objective, Start: start, Budgets: budgets, CarryOver: o.CarryOver, Money: o.Money,
 		Spent: make([]survey.Money, years), Mandatory: make([]survey.Money, years), Selection: make([]survey.Money, years)}
 	s := &scheduler{val: val, budgets: budgets, carry: o.CarryOver, forced: make([]int64, years), blocked: make([]bool, years),
 		year: map[*Candidate]int{}, knapsacked: map[*Candidate]bool{}}

@@ -54,7 +54,7 @@ func (s Settings) Budgets() []survey.Money {
 func (s Settings) Make(cands []*Candidate, start time.Time) []Plan {
 	var out []Plan
 	for _, o := range s.Objectives() {
-		out = append(out, Schedule(cands, start, s.Budgets(), Options{Objective: o, CarryOver: s.CarryOver, Money: s.Money, ToleranceMM: s.ToleranceMM}))
+		out = append(out, Schedule(cands, start, s.Budgets(), Options{Objective: o, CarryOver: s.CarryOver, Money: s.Money, ToleranceMM: s.ToleranceMM, Currency: s.Costs.Currency}))
 	}
 	return out
 }

@@ -55,4 +55,12 @@ func TestUpkeepCandidates(t *testing.T) {
 			t.Errorf("anodes: %s", r.Why)
 		}
 	}
+	// With 500 EUR a year, neither fits: the reason gives the money missing
+	// in the settings' currency (1 900 − 500 = 1 400 for the anodes).
+	set = Settings{Years: 5, Budget: 50000, Costs: Costs{Currency: "EUR"}}
+	for _, r := range set.Make(cands, s.Date)[0].Rows {
+		if r.Candidate.Work == WorkAnodes && !strings.HasSuffix(r.Why, "no plan year has the money: 1 400 EUR missing") {
+			t.Errorf("anodes without the money: %s", r.Why)
+		}
+	}
 }

@@ -26,7 +26,7 @@ func whyOf(p Plan, r Choice, s *scheduler) string {
 		}
 		return w
 	case StatusMandatoryUnfunded:
-		return fmt.Sprintf("%s; no plan year has the money: %s missing", mandatoryReason(c, s.val), r.Missing)
+		return fmt.Sprintf("%s; no plan year has the money: %s missing", mandatoryReason(c, s.val), p.money(r.Missing))
 	}
 	worth := worthOf(p, r, r.At)
 	if r.Status == StatusFunded {
@@ -34,9 +34,9 @@ func whyOf(p Plan, r Choice, s *scheduler) string {
 		case p.Across.FromSearch:
 			return fmt.Sprintf("%s; the best choice over all plan years funds it in year %d", worth, r.Year)
 		case len(p.Solutions) >= r.Year && p.Solutions[r.Year-1].Method == MethodAll:
-			return fmt.Sprintf("year %d's %s for the selection covers every repair left", r.Year, p.Selection[r.Year-1])
+			return fmt.Sprintf("year %d's %s for the selection covers every repair left", r.Year, p.money(p.Selection[r.Year-1]))
 		}
-		return fmt.Sprintf("%s; in the set worth most within the %s that year %d left to the selection", worth, p.Selection[r.Year-1], r.Year)
+		return fmt.Sprintf("%s; in the set worth most within the %s that year %d left to the selection", worth, p.money(p.Selection[r.Year-1]), r.Year)
 	}
 	positive, fits := false, false
 	var most survey.Money
@@ -49,11 +49,11 @@ func whyOf(p Plan, r Choice, s *scheduler) string {
 	case !positive && p.Objective == ObjectiveMoney && !r.Priced:
 		return "no expected failure cost to weigh: " + exposureReason(p, c)
 	case !positive && p.Objective == ObjectiveMoney:
-		return fmt.Sprintf("saves no money in any plan year: its cost %s is more than the discounted failure cost it would avoid (%s with no repair)", c.Cost, r.AtRisk)
+		return fmt.Sprintf("saves no money in any plan year: its cost %s is more than the discounted failure cost it would avoid (%s with no repair)", p.money(c.Cost), p.money(r.AtRisk))
 	case !positive:
-		return fmt.Sprintf("a repair for %s lowers its risk (%d at the start of year %d) in no plan year", c.Cost, r.RiskBefore, r.At)
+		return fmt.Sprintf("a repair for %s lowers its risk (%d at the start of year %d) in no plan year", p.money(c.Cost), r.RiskBefore, r.At)
 	case !fits:
-		return fmt.Sprintf("costs %s, more than any year left to the selection (at most %s)", c.Cost, most)
+		return fmt.Sprintf("costs %s, more than any year left to the selection (at most %s)", p.money(c.Cost), p.money(most))
 	}
 	left := p.Selection[r.At-1]
 	for _, f := range p.Rows {
@@ -63,13 +63,13 @@ func whyOf(p Plan, r Choice, s *scheduler) string {
 	}
 	switch {
 	case p.Across.Exact && len(p.Budgets) == 1:
-		return fmt.Sprintf("%s; costs more than the %s left beside the funded set, and making room for it gives up more", worth, left)
+		return fmt.Sprintf("%s; costs more than the %s left beside the funded set, and making room for it gives up more", worth, p.money(left))
 	case p.Across.Exact:
-		return fmt.Sprintf("%s in year %d, where %s is left beside the funded set; no choice over the plan years that funds it is worth more", worth, r.At, left)
+		return fmt.Sprintf("%s in year %d, where %s is left beside the funded set; no choice over the plan years that funds it is worth more", worth, r.At, p.money(left))
 	case len(p.Budgets) == 1:
-		return fmt.Sprintf("%s; not in the best set found (%s left; the search stopped at its limit)", worth, left)
+		return fmt.Sprintf("%s; not in the best set found (%s left; the search stopped at its limit)", worth, p.money(left))
 	}
-	return fmt.Sprintf("%s in year %d, where %s is left beside the funded set; not in any year's best set", worth, r.At, left)
+	return fmt.Sprintf("%s in year %d, where %s is left beside the funded set; not in any year's best set", worth, r.At, p.money(left))
 }
 
 // mandatoryReason names the CML that makes a repair mandatory.
@@ -110,11 +110,11 @@ func worthOf(p Plan, r Choice, y int) string {
 	per := perThousand(v, c.Cost, p.Objective == ObjectiveMoney)
 	switch {
 	case p.Objective == ObjectiveMoney:
-		return fmt.Sprintf("saves %s for %s (%s per 1 000)", signedMoney(v), c.Cost, per)
+		return fmt.Sprintf("saves %s for %s (%s per 1 000%s)", p.withCurrency(signedMoney(v)), p.money(c.Cost), per, p.unit())
 	case len(p.Budgets) == 1:
-		return fmt.Sprintf("removes %d of risk for %s (%s per 1 000)", v, c.Cost, per)
+		return fmt.Sprintf("removes %d of risk for %s (%s per 1 000%s)", v, p.money(c.Cost), per, p.unit())
 	}
-	return fmt.Sprintf("removes %d risk-years for %s (%s per 1 000)", v, c.Cost, per)
+	return fmt.Sprintf("removes %d risk-years for %s (%s per 1 000%s)", v, p.money(c.Cost), per, p.unit())
 }
 
 // perThousand is value per 1 000 currency units of cost, to two decimals,
@@ -147,4 +147,18 @@ func exposureReason(p Plan, c *Candidate) string {
 		}
 	}
 	return "no failure costs in the settings"
+}
+
+// money is an amount with the plan's currency, as the reasons print it.
+func (p Plan) money(m survey.Money) string { return p.withCurrency(m.String()) }
+
+// withCurrency adds the plan's currency to an amount written out.
+func (p Plan) withCurrency(amount string) string { return amount + p.unit() }
+
+// unit is the currency after a space, or "" when none is set.
+func (p Plan) unit() string {
+	if p.Currency == "" {
+		return ""
+	}
+	return " " + p.Currency
 }
