@@ -194,6 +194,7 @@ var noAccess = []string{"los", "n/a", "na", "n.a.", "none", "no access", "noacce
 
 func (r *checklistReader) row(cells []string, line int, cols []tableColumn) {
 	cml := CML{File: r.file, Line: line}
+	var blank []VisitDate // visit columns left empty
 	for i, v := range cells {
 		switch cols[i].role {
 		case colCML:
@@ -217,6 +218,9 @@ func (r *checklistReader) row(cells []string, line int, cols []tableColumn) {
 		case colWas:
 			cml.Was = append(cml.Was, strings.FieldsFunc(v, func(c rune) bool { return c == ',' || c == ' ' || c == ';' })...)
 		case colVisit:
+			if v == "" {
+				blank = append(blank, cols[i].date)
+			}
 			if v == "" || v == "-" || v == "—" || v == "–" {
 				break
 			}
@@ -248,6 +252,15 @@ func (r *checklistReader) row(cells []string, line int, cols []tableColumn) {
 	r.cmlLines[cml.ID] = line
 	if !slices.IsSortedFunc(cml.Visits, compareVisitDates) {
 		slices.SortStableFunc(cml.Visits, compareVisitDates)
+	}
+	if n := len(cml.Visits); n >= 2 {
+		for _, d := range blank {
+			// A cell left empty between two readings is more often a value
+			// forgotten than a visit skipped, which - says.
+			if d.Time.After(cml.Visits[0].Date.Time) && d.Time.Before(cml.Visits[n-1].Date.Time) {
+				r.problems.Warnf(r.file, line, "CML %s has an empty cell for %s between readings: it is taken as not measured; write - if so, or the reading", cml.ID, d)
+			}
+		}
 	}
 	r.comp.CMLs = append(r.comp.CMLs, r.blocks.cml(cml))
 }

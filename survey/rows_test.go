@@ -318,3 +318,19 @@ func generatedCell(rng *rand.Rand, header string, id int, units string) string {
 	}
 	return v()
 }
+
+// An empty visit cell between two readings of a CML is warned of at the row
+// (a value forgotten reads as a visit skipped and changes the short-term
+// rate); `-` says not measured and is quiet, as is an empty cell after the
+// last reading (a CML not re-measured, which the report states). Common
+// practice: a reading not taken is marked as such on the record.
+func TestEmptyCellBetweenReadings(t *testing.T) {
+	src := "---\ntitle: t\nsite: y\ninspector: z\ndate: 2026-05-01\nunits: mm\n---\n## Shell\n\n- nominal: 10\n- required: 5\n\n" +
+		"| CML | 2016-05-01 | 2021-05-01 | 2026-05-01 |\n|---|---|---|---|\n" +
+		"| C1 | 9.8 |  | 9.4 |\n| C2 | 9.8 | - | 9.4 |\n| C3 | 9.8 | 9.6 |  |\n"
+	_, problems := ParseChecklist("survey.md", []byte(src))
+	if len(problems) != 1 || problems[0].Line != 15 || problems[0].Severity != Warning ||
+		!strings.Contains(problems[0].Message, "CML C1 has an empty cell for 2021-05-01 between readings") {
+		t.Errorf("problems: %v", problems)
+	}
+}
