@@ -48,12 +48,7 @@ func (d *doc) budgetCurve(c plan.Curve, cur string) {
 	xOf := func(m survey.Money) float64 { return x0 + (float64(c.Forced.Add(m))/100-lo)/(hi-lo)*w }
 	yOf := func(v float64) float64 { return y0 + h - v/float64(top)*h }
 
-	p.SetLineWidth(0.2)
-	p.SetDrawColor(0, 0, 0)
-	p.Rect(x0, y0, w, h, "D")
-	d.font("", 7)
-	p.SetDrawColor(200, 200, 200)
-	p.SetDashPattern([]float64{0.6, 0.8}, 0)
+	d.chartFrame(x0, y0, w, h)
 	for _, v := range niceTicks(0, float64(top), 6) {
 		y := yOf(v)
 		p.Line(x0, y, x0+w, y)

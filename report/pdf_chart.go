@@ -246,12 +246,7 @@ func trimFloat(v float64) string {
 // value ticks (yAt places one) and at the years, and the value axis title.
 func (d *doc) timeAxes(x0, y0, w, h float64, ticks []float64, yAt func(float64) float64, years []time.Time, xOf func(time.Time) float64, title string) {
 	p := d.pdf
-	p.SetLineWidth(0.2)
-	p.SetDrawColor(0, 0, 0)
-	p.Rect(x0, y0, w, h, "D")
-	d.font("", 7)
-	p.SetDrawColor(200, 200, 200)
-	p.SetDashPattern([]float64{0.6, 0.8}, 0)
+	d.chartFrame(x0, y0, w, h)
 	for _, v := range ticks {
 		y := yAt(v)
 		p.Line(x0, y, x0+w, y)
@@ -268,4 +263,16 @@ func (d *doc) timeAxes(x0, y0, w, h float64, ticks []float64, yAt func(float64) 
 	p.SetDrawColor(0, 0, 0)
 	p.SetXY(margin, y0-4)
 	p.CellFormat(d.width(), 3, title, "", 0, "L", false, 0, "")
+}
+
+// chartFrame draws a chart's frame and readies the small font and the
+// dotted grey pen for its grid and tick labels.
+func (d *doc) chartFrame(x0, y0, w, h float64) {
+	p := d.pdf
+	p.SetLineWidth(0.2)
+	p.SetDrawColor(0, 0, 0)
+	p.Rect(x0, y0, w, h, "D")
+	d.font("", 7)
+	p.SetDrawColor(200, 200, 200)
+	p.SetDashPattern([]float64{0.6, 0.8}, 0)
 }

@@ -213,12 +213,7 @@ func (d *doc) gumbelPlot(p *survey.PitDetail) {
 	w := d.width() - chartLeft - 6
 	xOf := func(mm float64) float64 { return x0 + (mm-xLo)/(xHi-xLo)*w }
 	yOf := func(v float64) float64 { return y0 + h - (v-yLo)/(yHi-yLo)*h }
-	pdf.SetLineWidth(0.2)
-	pdf.SetDrawColor(0, 0, 0)
-	pdf.Rect(x0, y0, w, h, "D")
-	d.font("", 7)
-	pdf.SetDrawColor(200, 200, 200)
-	pdf.SetDashPattern([]float64{0.6, 0.8}, 0)
+	d.chartFrame(x0, y0, w, h)
 	for _, v := range niceTicks(yLo, yHi, 8) {
 		pdf.Line(x0, yOf(v), x0+w, yOf(v))
 		pdf.SetXY(margin, yOf(v)-1.5)

@@ -126,14 +126,7 @@ func (lr *localReader) pits() *LocalAssessment {
 	if hasGrowth && earlier != nil {
 		lr.errorf(lr.w.Line, "give growth rate or earlier depths, not both")
 	}
-	if !hasWall {
-		if lr.comp.Design.NominalMM == nil {
-			lr.errorf(lr.w.Line, "give wall, or a nominal thickness for the component")
-		} else {
-			wall = *lr.comp.Design.NominalMM
-			lr.inputs = append(lr.inputs, required.Input{Name: "wall", Written: "(nominal)", Used: fmt.Sprintf("%.4g mm", wall)})
-		}
-	}
+	wall = lr.wallOrNominal(wall, hasWall)
 	if in, ok := lr.find("depths"); ok {
 		lr.pitsInInches(in, depths, wall)
 	}
@@ -276,14 +269,7 @@ func (lr *localReader) corrodedArea() *LocalAssessment {
 	c.MAOPMPa, _ = lr.pressure("maop", true)
 	c.SafetyFactor, _ = lr.number("safety factor", "", true)
 	c.DepthRateMMPerY, _ = lr.rate("depth growth rate", false)
-	if !hasWall {
-		if lr.comp.Design.NominalMM == nil {
-			lr.errorf(lr.w.Line, "give wall, or a nominal thickness for the component")
-		} else {
-			wall = *lr.comp.Design.NominalMM
-			lr.inputs = append(lr.inputs, required.Input{Name: "wall", Written: "(nominal)", Used: fmt.Sprintf("%.4g mm", wall)})
-		}
-	}
+	wall = lr.wallOrNominal(wall, hasWall)
 	c.WallMM = wall
 	if lr.failed {
 		return nil

@@ -182,6 +182,20 @@ func yesNo(s string) (bool, error) {
 }
 
 // unused reports the inputs no method read.
+// wallOrNominal is the wall written, else the component's nominal thickness,
+// recorded as an input used; without either it is an error at the key.
+func (lr *localReader) wallOrNominal(wall float64, written bool) float64 {
+	switch {
+	case written:
+	case lr.comp.Design.NominalMM == nil:
+		lr.errorf(lr.w.Line, "give wall, or a nominal thickness for the component")
+	default:
+		wall = *lr.comp.Design.NominalMM
+		lr.inputs = append(lr.inputs, required.Input{Name: "wall", Written: "(nominal)", Used: fmt.Sprintf("%.4g mm", wall)})
+	}
+	return wall
+}
+
 func (lr *localReader) unused() {
 	for _, in := range lr.w.Inputs {
 		if !lr.used[in.Name] {
