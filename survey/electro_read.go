@@ -252,18 +252,12 @@ func (r *checklistReader) electroTable(t *tableBlock, names []string, headerLine
 		r.problems.Warnf(r.file, headerLine, "the %s table has no rows: write a row under the header, or leave the table out", kind)
 	}
 	line := headerLine
-	var cells []string
+	var shape, cells []string
 	for _, row := range t.rows[1:] {
 		line = r.lines.advance(line, row.Start)
-		text := r.lineText(row.Start)
-		if n := len(splitRow(nil, text)); n != len(names) {
-			r.problems.Errorf(r.file, line, "row has %d %s, the header has %d: write one cell per column (- for a value not taken)",
-				n, plural(n, "cell", "cells"), len(names))
+		var ok bool
+		if shape, cells, ok = r.rowCells(shape, cells, r.lineText(row.Start), line, len(names), "value"); !ok {
 			continue
-		}
-		cells = gfmCells(cells[:0], text)
-		for len(cells) < len(names) {
-			cells = append(cells, "")
 		}
 		var err error
 		switch kind {

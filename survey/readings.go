@@ -64,20 +64,30 @@ func (r *checklistReader) table(t *tableBlock) {
 		start := row.Start
 		line = r.lines.advance(line, start)
 		text := r.lineText(start)
-		// goldmark fills short rows and cuts long ones, so their shape is
-		// checked on the text as written.
-		if shape = splitRow(shape[:0], text); len(shape) != len(cols) {
-			n := len(shape)
-			r.problems.Errorf(r.file, line, "row has %d %s, the header has %d: write one cell per column (- for a reading not taken)",
-				n, plural(n, "cell", "cells"), len(cols))
-			continue
+		var ok bool
+		if shape, cells, ok = r.rowCells(shape, cells, text, line, len(cols), "reading"); ok {
+			r.row(cells[:len(cols)], line, cols)
 		}
-		cells = gfmCells(cells[:0], text)
-		for len(cells) < len(cols) {
-			cells = append(cells, "")
-		}
-		r.row(cells[:len(cols)], line, cols)
 	}
+}
+
+// rowCells splits a table row written as text into its n cells (cells is
+// reused, shape is room for the check), or refuses at line a row whose
+// number of cells is not the header's; what names a value not taken.
+// goldmark fills short rows and cuts long ones, so their shape is checked on
+// the text as written.
+func (r *checklistReader) rowCells(shape, cells []string, text string, line, n int, what string) ([]string, []string, bool) {
+	if shape = splitRow(shape[:0], text); len(shape) != n {
+		got := len(shape)
+		r.problems.Errorf(r.file, line, "row has %d %s, the header has %d: write one cell per column (- for a %s not taken)",
+			got, plural(got, "cell", "cells"), n, what)
+		return shape, cells, false
+	}
+	cells = gfmCells(cells[:0], text)
+	for len(cells) < n {
+		cells = append(cells, "")
+	}
+	return shape, cells, true
 }
 
 // lineText returns the text of the checklist from offset start to the end
